@@ -1,0 +1,25 @@
+import { z } from 'zod';
+
+/** Roles a member holds in one unit (PRODUCT.md, Roles). */
+export const roles = ['nurse', 'endoscopist', 'supervisor', 'admin'] as const;
+export const roleSchema = z.enum(roles);
+export type Role = z.infer<typeof roleSchema>;
+
+/** RFC 9562 UUID, any version; UUIDv7 where the id is made on the tablet. */
+export const uuidSchema = z.uuid();
+/** RFC 9562 §5.7: version nibble 7, variant bits 10. */
+export const uuidV7Schema = z
+  .string()
+  .regex(/^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/i, 'must be a UUIDv7');
+
+/** ISO 8601 date-time with an offset or Z, as sent on the wire. */
+export const isoDateTimeSchema = z.iso.datetime({ offset: true });
+/** ISO 8601 calendar date (YYYY-MM-DD). */
+export const isoDateSchema = z.iso.date();
+
+/** The JSON body of every error answer: a message and, for a bad request, the fields at fault. */
+export const apiErrorSchema = z.object({
+  error: z.string(),
+  issues: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+});
+export type ApiError = z.infer<typeof apiErrorSchema>;
