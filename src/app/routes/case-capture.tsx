@@ -1,0 +1,32 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { captureCaseQueryOptions, useCaptureCase } from '@/features/capture/api/get-case.ts';
+import { CaptureScreen } from '@/features/capture/components/capture-screen.tsx';
+import { tabletEngine } from '@/features/capture/sync-engine.ts';
+import { queryClient } from '@/lib/query-client.ts';
+import { useMe } from '@/lib/session.ts';
+import { SyncProvider } from '@/sync/react.ts';
+import { requireCan } from '../guard.ts';
+import type { RouteHandle } from '../theme-scope.ts';
+
+/**
+ * The recorder, full screen (outside the app's header: in the room every row of the screen is for the
+ * pad). Signed-in only, for roles that record; opens in the dim-room theme.
+ */
+export const handle: RouteHandle = { themeScope: 'capture' };
+
+export async function loader(args: LoaderFunctionArgs) {
+  await requireCan(args, 'event.record');
+  if (args.params.id) void queryClient.prefetchQuery(captureCaseQueryOptions(args.params.id));
+  return null;
+}
+
+export function Component() {
+  const { id = '' } = useParams();
+  const me = useMe();
+  const summary = useCaptureCase(id).data ?? null;
+  return (
+    <SyncProvider engine={tabletEngine(me.user.id)}>
+      <CaptureScreen key={id} caseId={id} summary={summary} />
+    </SyncProvider>
+  );
+}

@@ -1,0 +1,22 @@
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { can } from '#shared/domain/permissions.ts';
+import { caseQueryOptions } from '@/features/cases/api/get-case.ts';
+import { CaseOverview } from '@/features/cases/components/case-overview.tsx';
+import { queryClient } from '@/lib/query-client.ts';
+import { useMe } from '@/lib/session.ts';
+
+// Starts the request while the screen's code loads; the screen shows its own loading and error states.
+export const loader = ({ params }: LoaderFunctionArgs) => {
+  if (params.id) void queryClient.prefetchQuery(caseQueryOptions(params.id));
+  return null;
+};
+
+export function Component() {
+  const { id = '' } = useParams();
+  const me = useMe();
+  return (
+    <div className="mx-auto w-full max-w-5xl px-4 py-6 sm:px-6">
+      <CaseOverview caseId={id} canRecord={can(me.role, 'event.record')} />
+    </div>
+  );
+}
