@@ -1,0 +1,72 @@
+import type { Db } from '#server/db/client.ts';
+import type { Auditor } from '#server/http/audit.ts';
+import { badRequest, conflict, notFound, type Issue } from '#server/http/errors.ts';
+import type { Actor } from '#server/http/session.ts';
+import type { CancelCaseInput, CaseDetail } from '#shared/schemas/api-cases.ts';
+import type { CaseStatus, CaseSummary, ScheduleCaseInput } from '#shared/schemas/cases.ts';
+import { uuidSchema } from '#shared/schemas/common.ts';
+import { hasRole } from '../members/queries.ts';
+import { reuseOrCreatePatient } from '../patients/service.ts';
+import { findRoom } from '../rooms/queries.ts';
+import { toDetail, toSummary } from './mapping.ts';
+import { cancelScheduledCase, findCaseRecord, insertCase, listCaseRecords } from './queries.ts';
+
+export async function listCases(db: Db, actor: Actor, q: { date?: string; roomId?: string; status?: CaseStatus }): Promise<CaseSummary[]> {
+  const rows = await listCaseRecords(db, actor.unitId, { ...q, timeZone: actor.timeZone });
+  return rows.map(toSummary);
+}
+
+/** The room and the team must be this unit's, each member in the role the field names. */
+async function checkTeamAndRoom(db: Db, unitId: string, input: ScheduleCaseInput): Promise<Issue[]> {
+  const issues: Issue[] = [];
+  if (!(await findRoom(db, unitId, input.roomId))) issues.push({ path: 'roomId', message: 'No such room in this unit' });
+  const member = async (id: string, role: 'endoscopist' | 'nurse') => uuidSchema.safeParse(id).success && hasRole(db, unitId, id, role);
+  if (!(await member(input.endoscopistId, 'endoscopist'))) issues.push({ path: 'endoscopistId', message: 'Not an endoscopist of this unit' });
+  if (!(await member(input.nurseId, 'nurse'))) issues.push({ path: 'nurseId', message: 'Not a nurse of this unit' });
+  return issues;
+}
+
+/** Schedule a case: the patient is reused by hospital number within the unit, or made. */
+export async function scheduleCase(db: Db, actor: Actor, input: ScheduleCaseInput, audit: Auditor): Promise<CaseSummary> {
+  const issues = await checkTeamAndRoom(db, actor.unitId, input);
+  if (issues.length) throw badRequest(`Cannot schedule: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`, issues);
+  const id = await db.transaction(async (tx) => {
+    const patient = await reuseOrCreatePatient(tx, actor.unitId, input.patient);
+    const caseId = await insertCase(tx, {
+      unitId: actor.unitId, patientId: patient.id, roomId: input.roomId, procedureType: input.procedureType,
+      indication: input.indication, lesionSite: input.lesion.site, lesionSizeMm: input.lesion.sizeMm,
+      lesionParis: input.lesion.paris, sedation: input.sedation, endoscopistId: input.endoscopistId,
+      nurseId: input.nurseId, scheduledAt: new Date(input.scheduledAt), createdBy: actor.userId,
+    });
+    await audit(tx, { action: 'case.schedule', entityType: 'case', entityId: caseId, detail: { patientId: patient.id } });
+    return caseId;
+  });
+  const row = await findCaseRecord(db, actor.unitId, id);
+  if (!row) throw new Error(`case ${id} vanished after insert`);
+  return toSummary(row);
+}
+
+/**
+ * One case of the actor's unit. Another unit's case answers 404, the same as no case, so that case ids
+ * reveal nothing across units. Every read is written to the audit log (PRODUCT.md, Roles).
+ */
+export async function getCase(db: Db, actor: Actor, caseId: string, audit: Auditor): Promise<CaseDetail> {
+  const row = await findCaseRecord(db, actor.unitId, caseId);
+  if (!row) throw notFound('No such case in your unit');
+  await audit(db, { action: 'case.view', entityType: 'case', entityId: caseId, detail: { patientId: row.patientId } });
+  return toDetail(row);
+}
+
+/** Cancel a case that has not begun; a case being recorded or done is never cancelled (409). */
+export async function cancelCase(db: Db, actor: Actor, caseId: string, input: CancelCaseInput, audit: Auditor): Promise<CaseDetail> {
+  const before = await findCaseRecord(db, actor.unitId, caseId);
+  if (!before) throw notFound('No such case in your unit');
+  await db.transaction(async (tx) => {
+    const done = await cancelScheduledCase(tx, actor.unitId, caseId, input.reason ?? null);
+    if (!done) throw conflict(`Only a scheduled case can be cancelled; this one is ${before.status}`);
+    await audit(tx, { action: 'case.cancel', entityType: 'case', entityId: caseId, detail: input.reason ? { reason: input.reason } : null });
+  });
+  const after = await findCaseRecord(db, actor.unitId, caseId);
+  if (!after) throw new Error(`case ${caseId} vanished after cancel`);
+  return toDetail(after);
+}
