@@ -1,0 +1,58 @@
+import type { Logger } from 'pino';
+import type { Socket } from 'socket.io';
+import type { Auth } from '../auth.ts';
+import type { Db } from '../db/client.ts';
+import { insertAudit } from '../modules/audit/queries.ts';
+import { caseAccess, isDenied, recordDenial, type AccessDenied } from '../modules/events/access.ts';
+import { announceRecorded } from '../modules/events/recorded.ts';
+import { eventsPage, recordEvents } from '../modules/events/service.ts';
+import {
+  caseJoinSchema, caseLeaveSchema, caseRoom, clockPingSchema, eventsPushSchema, MAX_PUSH_BYTES, SyncMessages,
+  type CaseJoinAck, type ClockPong, type EventsPushAck, type OkAck,
+} from '#shared/contracts/sync.ts';
+import { handle, SyncRefusal, syncError } from './guard.ts';
+import { currentUser } from './session.ts';
+
+export type HandlerDeps = { db: Db; auth: Auth; logger: Logger };
+
+const refusal = (d: AccessDenied) => new SyncRefusal(syncError(d.code, d.message));
+
+/** Small messages (join, leave, ping) have no reason to be larger than this. */
+const SMALL_MESSAGE_BYTES = 4 * 1024;
+
+/** The sync protocol of one socket (shared/contracts/sync.ts). */
+export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDeps): void {
+  const small = { maxBytes: SMALL_MESSAGE_BYTES, logger };
+
+  // Join a case room, then read: an event committed in between arrives twice (the client keeps one), never zero times.
+  handle(socket, SyncMessages.caseJoin, caseJoinSchema, async ({ caseId, afterSeq }): Promise<CaseJoinAck> => {
+    const userId = await currentUser(auth, socket);
+    const access = await caseAccess(db, userId, caseId);
+    if (isDenied(access)) throw refusal(access);
+    await socket.join(caseRoom(caseId));
+    if (afterSeq === 0) {
+      await insertAudit(db, { action: 'record.view', entityType: 'case', entityId: caseId, userId, unitId: access.unitId, ip: socket.handshake.address });
+    }
+    const page = await eventsPage(db, caseId, afterSeq);
+    return { caseId, status: access.status, ...page };
+  }, small);
+
+  handle(socket, SyncMessages.caseLeave, caseLeaveSchema, async ({ caseId }): Promise<OkAck> => {
+    await socket.leave(caseRoom(caseId));
+    return { ok: true };
+  }, small);
+
+  handle(socket, SyncMessages.eventsPush, eventsPushSchema, async ({ caseId, events }): Promise<EventsPushAck> => {
+    const userId = await currentUser(auth, socket);
+    const access = await caseAccess(db, userId, caseId);
+    if (isDenied(access)) throw refusal(access);
+    const denial = recordDenial(access);
+    if (denial) throw refusal(denial);
+    const { results, stored } = await recordEvents(db, { caseId, unitId: access.unitId }, events);
+    announceRecorded(db, caseId, stored); // committed: the room hears of it before the sender's ack
+    return { results };
+  }, { maxBytes: MAX_PUSH_BYTES, logger });
+
+  // RFC 5905 on-wire exchange: T2 when the ping arrived, T3 as the answer leaves.
+  handle(socket, SyncMessages.clockPing, clockPingSchema, ({ t1 }, t2): ClockPong => ({ t1, t2, t3: Date.now() }), small);
+}

@@ -1,0 +1,129 @@
+import { caseJoinAckSchema, eventsRecordedSchema, isSyncError, okAckSchema, SyncMessages } from '#shared/contracts/sync.ts';
+import type { StoredEvent } from '#shared/schemas/events.ts';
+import { buildCaseSnapshot, CaseState, type CaseSnapshot, type TimelineItem } from './case-view.ts';
+import { createObservable, type Observable } from './observable.ts';
+import type { OutboxEntry, TapState } from './outbox.ts';
+import { request, type SyncSocket } from './socket-client.ts';
+import type { SyncStorage } from './storage.ts';
+
+/** In memory, each outbox entry with its live state ('saving' and 'sent' are never stored). */
+export type Pending = OutboxEntry & { live: TapState };
+
+type Deps = {
+  socket: SyncSocket;
+  storage: SyncStorage;
+  ackTimeoutMs: number;
+  /** The engine's outbox entries: an event accepted by the server leaves it here. */
+  entries: Map<string, Pending>;
+  changed: (caseId?: string) => void;
+  onError: (message: string) => void;
+};
+
+/**
+ * The cases a tablet shows: their accepted events (kept in IndexedDB too), the room membership, the
+ * catch-up after each (re)connect from the highest contiguous sequence held, and the live broadcasts.
+ */
+export class CaseRegistry {
+  private readonly cases = new Map<string, CaseState>();
+  private readonly views = new Map<string, Observable<CaseSnapshot>>();
+  private readonly joining = new Set<string>();
+
+  constructor(private readonly d: Deps) {}
+
+  state(caseId: string): CaseState {
+    let c = this.cases.get(caseId);
+    if (!c) { c = new CaseState(caseId); this.cases.set(caseId, c); }
+    return c;
+  }
+
+  view(caseId: string): Observable<CaseSnapshot> {
+    let v = this.views.get(caseId);
+    if (!v) {
+      v = createObservable(() => buildCaseSnapshot(this.state(caseId), this.pendingOf(caseId)));
+      this.views.set(caseId, v);
+    }
+    return v;
+  }
+
+  invalidate(caseId?: string): void {
+    if (caseId) this.views.get(caseId)?.invalidate();
+    else for (const v of this.views.values()) v.invalidate();
+  }
+
+  /** First viewer of a case: read what the tablet holds; returns true when the room should be joined now. */
+  async open(caseId: string): Promise<boolean> {
+    const c = this.state(caseId);
+    if (++c.refs > 1) return false;
+    if (!c.loaded) {
+      c.absorb(await this.d.storage.listStored(caseId));
+      c.loaded = true;
+      this.d.changed(caseId);
+    }
+    return true;
+  }
+
+  /** Last viewer gone: leave the room (the events stay in IndexedDB). */
+  close(caseId: string): void {
+    const c = this.cases.get(caseId);
+    if (!c || c.refs === 0) return;
+    if (--c.refs === 0 && this.d.socket.connected) {
+      request(this.d.socket, SyncMessages.caseLeave, { caseId }, okAckSchema, this.d.ackTimeoutMs).catch(() => undefined);
+    }
+  }
+
+  /** Join every case that has a viewer (after a connect). */
+  joinOpen(): void {
+    for (const c of this.cases.values()) if (c.refs > 0) void this.join(c.caseId);
+  }
+
+  /** Join a case's room and read every page after the contiguous sequence held. */
+  async join(caseId: string): Promise<void> {
+    if (this.joining.has(caseId)) return;
+    this.joining.add(caseId);
+    const c = this.state(caseId);
+    try {
+      for (;;) {
+        const ack = await request(this.d.socket, SyncMessages.caseJoin, { caseId, afterSeq: c.contiguousSeq }, caseJoinAckSchema, this.d.ackTimeoutMs);
+        if (isSyncError(ack)) { c.error = ack.error; this.d.changed(caseId); return; }
+        c.error = null;
+        c.status = ack.status;
+        await this.accept(caseId, ack.events);
+        c.lastSeq = Math.max(c.lastSeq, ack.lastSeq);
+        this.d.changed(caseId);
+        if (!ack.hasMore || ack.events.length === 0) return;
+      }
+    } catch (err) {
+      this.d.onError((err as Error).message); // unanswered: the next connect joins again
+    } finally {
+      this.joining.delete(caseId);
+    }
+  }
+
+  /** `events.recorded` from the room; a gap in the sequence (a missed broadcast) is filled by a join. */
+  onRecorded(msg: unknown): void {
+    const parsed = eventsRecordedSchema.safeParse(msg);
+    if (!parsed.success) return;
+    const c = this.state(parsed.data.caseId);
+    this.accept(c.caseId, parsed.data.events).then(() => {
+      if (c.hasGap && c.refs > 0 && this.d.socket.connected) void this.join(c.caseId);
+    }, (err: unknown) => this.d.onError((err as Error).message));
+  }
+
+  /** Take accepted events into the case and the IndexedDB cache; their outbox entries are done. */
+  async accept(caseId: string, events: readonly StoredEvent[]): Promise<void> {
+    const added = this.state(caseId).absorb(events);
+    if (!added.length) return;
+    const done = added.filter((e) => this.d.entries.delete(e.id)).map((e) => e.id);
+    this.d.changed(caseId);
+    // The cache is written before the outbox rows go: a crash between the two resends (a duplicate), never loses.
+    await this.d.storage.putStored(added);
+    await this.d.storage.deleteOutboxMany(done);
+  }
+
+  private pendingOf(caseId: string): TimelineItem[] {
+    return [...this.d.entries.values()]
+      .filter((p) => p.event.caseId === caseId)
+      .sort((a, b) => (a.event.id < b.event.id ? -1 : 1))
+      .map((p) => ({ id: p.event.id, event: p.event, state: p.live, seq: null, receivedAt: null, reason: p.reason }));
+  }
+}

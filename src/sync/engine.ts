@@ -1,0 +1,243 @@
+import { v7 as uuidv7 } from 'uuid';
+import { clockPingAckSchema, isSyncError, MAX_BATCH_EVENTS, SyncMessages } from '#shared/contracts/sync.ts';
+import { newEventSchema, type EventKind, type NewEvent, type NewEventOf, type PayloadOf } from '#shared/schemas/events.ts';
+import type { CaseSnapshot } from './case-view.ts';
+import { CaseRegistry, type Pending } from './cases.ts';
+import { createClockSampler } from './clock-sampler.ts';
+import { discardRemarkText, rebuildEvent, type ResubmitChanges } from './corrections.ts';
+import { loadDeviceId } from './device-id.ts';
+import { createObservable, type Observable } from './observable.ts';
+import { newOutboxEntry } from './outbox.ts';
+import { Pusher } from './pusher.ts';
+import { request, type SyncSocket } from './socket-client.ts';
+import { buildStatus, type SyncStatus } from './status.ts';
+import { openSyncStorage, type WriteReceipt } from './storage.ts';
+
+export type SyncEngineOptions = {
+  socket: SyncSocket;
+  /** The signed-in user's id: the author of what is tapped on this tablet. */
+  author: string;
+  /** IndexedDB database name (tests give each "tablet" its own). */
+  dbName?: string;
+  /** The tablet clock, ms since the epoch (also what deviceTime is read from). */
+  now?: () => number;
+  /** Most events per push (at most MAX_BATCH_EVENTS). */
+  batchSize?: number;
+  ackTimeoutMs?: number;
+  /** Waits between failed pushes, the last one repeating. */
+  retryDelaysMs?: readonly number[];
+  clock?: { burst?: number; intervalMs?: number };
+};
+
+export type TapInput<K extends EventKind> = { caseId: string; kind: K; payload: PayloadOf<K> };
+
+/**
+ * The tablet's sync engine, framework-free. A tap is written to the IndexedDB outbox before it counts as
+ * taken, pushed at least once until the server answers for it, and kept with its reason if refused.
+ * Accepted events of the cases on screen are held in memory and in IndexedDB; each (re)connect sends
+ * what is queued and catches up from the last sequence held. React reaches it through ./react.ts.
+ */
+export class SyncEngine {
+  private readonly socket: SyncSocket;
+  private readonly storage;
+  private readonly now: () => number;
+  private author: string;
+  private device = '';
+  private readonly entries = new Map<string, Pending>();
+  private readonly cases: CaseRegistry;
+  private readonly pusher: Pusher;
+  private readonly sampler;
+  private clock: SyncStatus['clock'] = null;
+  private lastError: string | null = null;
+  private lastWrite: WriteReceipt | null = null;
+  private stopped = false;
+  readonly ready: Promise<void>;
+  readonly status: Observable<SyncStatus>;
+
+  constructor(opts: SyncEngineOptions) {
+    this.socket = opts.socket;
+    this.author = opts.author;
+    this.now = opts.now ?? (() => Date.now());
+    this.storage = openSyncStorage(opts.dbName);
+    const ackTimeoutMs = opts.ackTimeoutMs ?? 10_000;
+    const onError = (message: string) => { this.lastError = message; this.changed(); };
+    this.cases = new CaseRegistry({ socket: this.socket, storage: this.storage, ackTimeoutMs, entries: this.entries, changed: (id) => this.changed(id), onError });
+    this.pusher = new Pusher({
+      socket: this.socket, storage: this.storage, entries: this.entries, cases: this.cases, ackTimeoutMs, onError,
+      changed: (id) => this.changed(id),
+      batchSize: Math.min(opts.batchSize ?? 100, MAX_BATCH_EVENTS),
+      retryDelaysMs: opts.retryDelaysMs ?? [1_000, 2_000, 5_000, 10_000, 30_000],
+    });
+    this.status = createObservable(() => buildStatus({
+      connected: this.socket.connected, pushing: this.pusher.pushing, entries: [...this.entries.values()],
+      clock: this.clock, lastError: this.lastError, lastWrite: this.lastWrite,
+    }));
+    this.sampler = createClockSampler({
+      ...opts.clock,
+      now: this.now,
+      ping: async (t1) => {
+        const a = await request(this.socket, SyncMessages.clockPing, { t1 }, clockPingAckSchema, ackTimeoutMs);
+        if (isSyncError(a)) throw new Error(a.error);
+        return a;
+      },
+      onEstimate: (e) => {
+        this.clock = { offsetMs: e.offsetMs, uncertaintyMs: e.uncertaintyMs };
+        this.storage.setMeta('clock', this.clock).catch(() => undefined); // only a hint for the next offline start
+        this.changed();
+      },
+    });
+    this.ready = this.load();
+  }
+
+  /** Read the device id, the outbox and the last clock estimate from IndexedDB, then connect. */
+  private async load(): Promise<void> {
+    this.device = await loadDeviceId(this.storage);
+    const clock = await this.storage.getMeta<{ offsetMs: number; uncertaintyMs: number }>('clock');
+    if (clock && Number.isFinite(clock.offsetMs)) this.clock = clock;
+    for (const e of await this.storage.listOutbox()) this.entries.set(e.event.id, { ...e, live: e.state });
+    const s = this.socket;
+    s.on('connect', () => {
+      this.lastError = null;
+      this.changed();
+      void this.sampler.start();
+      this.cases.joinOpen();
+      this.pusher.connected();
+    });
+    s.on('disconnect', () => { this.sampler.stop(); this.changed(); });
+    s.on('connect_error', (err) => { this.lastError = err.message; this.changed(); });
+    s.on(SyncMessages.eventsRecorded, (msg) => this.cases.onRecorded(msg));
+    this.changed();
+    if (!this.stopped) s.connect();
+  }
+
+  get deviceId(): string { return this.device; }
+  /** After another user signs in on this tablet: their id goes on the next taps. */
+  setAuthor(userId: string): void { this.author = userId; }
+
+  /**
+   * Connect again after the server refused the handshake (no session yet, or it ended): Socket.IO does
+   * not retry a refusal by itself. Call it after signing in.
+   */
+  reconnect(): void {
+    if (!this.stopped && !this.socket.connected) this.socket.connect();
+  }
+
+  /**
+   * Record a tap: the event is built (UUIDv7, device time now, current offset and uncertainty) and shown
+   * to subscribers as 'saving' within this call; the promise resolves once the outbox write committed
+   * in IndexedDB. It rejects, and the tap leaves the screen, when the input is invalid or the write failed.
+   */
+  recordTap<K extends EventKind>(input: TapInput<K>): Promise<NewEventOf<K>> {
+    return this.tap(input, null);
+  }
+
+  private tap<K extends EventKind>(input: TapInput<K>, discardOf: string | null): Promise<NewEventOf<K>> {
+    if (!this.device) return this.ready.then(() => this.tap(input, discardOf));
+    let event: NewEvent;
+    try {
+      event = newEventSchema.parse({
+        id: uuidv7(), caseId: input.caseId, kind: input.kind, payload: input.payload,
+        deviceTime: new Date(this.now()).toISOString(),
+        offsetMs: this.clock?.offsetMs ?? 0, offsetUncertaintyMs: this.clock?.uncertaintyMs ?? null,
+        author: this.author, device: this.device,
+      }) as NewEvent;
+    } catch (err) {
+      return Promise.reject(err);
+    }
+    return this.enqueue(event, discardOf).then(() => event as NewEventOf<K>);
+  }
+
+  private async enqueue(event: NewEvent, discardOf: string | null = null): Promise<void> {
+    const entry = newOutboxEntry(event, discardOf);
+    this.entries.set(event.id, { ...entry, live: 'saving' });
+    this.changed(event.caseId);
+    try {
+      this.lastWrite = await this.storage.putOutbox(entry);
+    } catch (err) {
+      this.entries.delete(event.id);
+      this.changed(event.caseId);
+      throw err;
+    }
+    const p = this.entries.get(event.id);
+    if (p?.live === 'saving') p.live = 'queued';
+    this.changed(event.caseId);
+    void this.pusher.pump();
+  }
+
+  /**
+   * Discard a refused event. Recorded twice: as a `remark` event in the case (synced like any tap, so the
+   * record itself says what was discarded and why) and as an audit entry kept on the tablet. Discarding
+   * the remark of an earlier discard (refused too, say in a closed case) writes only the audit entry.
+   */
+  async discardRefused(id: string, why: string): Promise<void> {
+    const p = this.refusedEntry(id);
+    let recordedAs: string | null = null;
+    if (!p.discardOf) {
+      const remark = await this.tap({ caseId: p.event.caseId, kind: 'remark', payload: { text: discardRemarkText(p.event, p.reason, why) } }, id);
+      recordedAs = remark.id;
+    }
+    await this.storage.appendAudit({ action: 'discarded', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs });
+    await this.drop(p.event);
+  }
+
+  /** Fix a refused event: send it again as a new event (new id) with the changes; the old one is dropped and audited. */
+  async resubmitRefused(id: string, changes: ResubmitChanges, why = 'Corrected and sent again'): Promise<NewEvent> {
+    const p = this.refusedEntry(id);
+    const event = rebuildEvent(p.event, changes, { id: uuidv7(), author: this.author });
+    await this.enqueue(event);
+    await this.storage.appendAudit({ action: 'replaced', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs: event.id });
+    await this.drop(p.event);
+    return event;
+  }
+
+  private refusedEntry(id: string): Pending {
+    const p = this.entries.get(id);
+    if (!p || p.live !== 'refused') throw new Error(`No refused event ${id} on this tablet`);
+    return p;
+  }
+
+  private async drop(event: NewEvent): Promise<void> {
+    await this.storage.deleteOutbox(event.id);
+    this.entries.delete(event.id);
+    this.changed(event.caseId);
+  }
+
+  /** The tablet's own audit of discarded and replaced events. */
+  listAudit() { return this.storage.listAudit(); }
+
+  /** Show a case: read its events kept on the tablet, then join its room (now, and after every reconnect). */
+  async openCase(caseId: string): Promise<void> {
+    if (!(await this.cases.open(caseId))) return;
+    await this.ready;
+    if (this.socket.connected) await this.cases.join(caseId);
+  }
+
+  /** Stop showing a case (the last viewer left): leave its room; what is held stays in IndexedDB. */
+  closeCase(caseId: string): void { this.cases.close(caseId); }
+
+  /** The case's timeline as a subscribe/getSnapshot store. */
+  caseView(caseId: string): Observable<CaseSnapshot> { return this.cases.view(caseId); }
+
+  /** Push what is queued now (the screen may offer "send now"; it also runs after each tap and connect). */
+  pump(): Promise<void> { return this.pusher.pump(); }
+
+  private changed(caseId?: string): void {
+    this.status.invalidate();
+    this.cases.invalidate(caseId);
+  }
+
+  /** Disconnect and close IndexedDB; what is queued stays queued for the next start. */
+  async stop(): Promise<void> {
+    this.stopped = true;
+    this.pusher.stop();
+    await this.ready.catch(() => undefined);
+    this.sampler.stop();
+    this.socket.removeAllListeners();
+    this.socket.disconnect();
+    await this.storage.close();
+  }
+}
+
+export function createSyncEngine(opts: SyncEngineOptions): SyncEngine {
+  return new SyncEngine(opts);
+}

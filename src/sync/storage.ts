@@ -1,0 +1,90 @@
+import { del, delMany, get, promisifyRequest, set, type UseStore } from 'idb-keyval';
+import type { StoredEvent } from '#shared/schemas/events.ts';
+import { outboxEntrySchema, type OutboxEntry, type AuditEntry } from './outbox.ts';
+
+/**
+ * What the tablet keeps in IndexedDB (one database, default name "ledgerline"):
+ *   outbox  key event id            → OutboxEntry (events not yet accepted, and refused ones); written
+ *                                      with durability 'strict', so a tap survives a crash or power loss
+ *   events  key [caseId, seq]       → StoredEvent (the accepted log of each opened case, for offline reloads)
+ *   meta    key 'deviceId' | 'clock' → the tablet's id; the last clock estimate
+ *   audit   key auto-increment      → AuditEntry (what a person discarded or replaced, kept on the tablet)
+ * idb-keyval's own createStore makes one store per database, so the stores are opened here and handed
+ * to idb-keyval's functions as its `UseStore`.
+ */
+const STORES = ['outbox', 'events', 'meta', 'audit'] as const;
+type StoreName = (typeof STORES)[number];
+
+export type WriteReceipt = { durability: IDBTransactionDurability; ms: number };
+
+export type SyncStorage = ReturnType<typeof openSyncStorage>;
+
+export function openSyncStorage(dbName = 'ledgerline', now: () => number = () => performance.now()) {
+  let dbp: Promise<IDBDatabase> | undefined;
+  const getDb = () => {
+    if (dbp) return dbp;
+    const request = indexedDB.open(dbName, 1);
+    request.onupgradeneeded = () => {
+      for (const name of STORES) {
+        if (!request.result.objectStoreNames.contains(name)) {
+          request.result.createObjectStore(name, name === 'audit' ? { autoIncrement: true } : undefined);
+        }
+      }
+    };
+    dbp = promisifyRequest(request);
+    dbp.then((db) => { db.onclose = () => { dbp = undefined; }; }, () => { dbp = undefined; });
+    return dbp;
+  };
+  const store = (name: StoreName, durability: IDBTransactionDurability = 'default'): UseStore =>
+    (mode, callback) => getDb().then((db) => callback(db.transaction(name, mode, { durability }).objectStore(name)));
+
+  const outbox = store('outbox', 'strict');
+  const events = store('events');
+  const meta = store('meta');
+  const audit = store('audit', 'strict');
+  const caseRange = (caseId: string) => IDBKeyRange.bound([caseId, 0], [caseId, Infinity]);
+
+  return {
+    /**
+     * Write one outbox entry and resolve once its transaction has committed (the `complete` event of a
+     * 'strict' transaction: flushed to disk, not only to the OS). Returns what was asked and how long it took.
+     */
+    async putOutbox(entry: OutboxEntry): Promise<WriteReceipt> {
+      const started = now();
+      const durability = await outbox('readwrite', (s) => {
+        s.put(entry, entry.event.id);
+        return promisifyRequest(s.transaction).then(() => s.transaction.durability);
+      });
+      return { durability, ms: now() - started };
+    },
+    deleteOutbox: (id: string) => del(id, outbox),
+    deleteOutboxMany: (ids: string[]) => (ids.length ? delMany(ids, outbox) : Promise.resolve()),
+    /** Every outbox entry, oldest first (UUIDv7 keys sort by creation time). Unreadable rows are skipped, never deleted. */
+    async listOutbox(): Promise<OutboxEntry[]> {
+      const rows = await outbox('readonly', (s) => promisifyRequest(s.getAll()));
+      return rows.flatMap((r) => { const p = outboxEntrySchema.safeParse(r); return p.success ? [p.data] : []; });
+    },
+    async putStored(list: readonly StoredEvent[]): Promise<void> {
+      if (!list.length) return;
+      await events('readwrite', (s) => {
+        for (const e of list) s.put(e, [e.caseId, e.seq]);
+        return promisifyRequest(s.transaction);
+      });
+    },
+    /** The accepted events of a case held on the tablet, by sequence. */
+    listStored: (caseId: string): Promise<StoredEvent[]> =>
+      events('readonly', (s) => promisifyRequest(s.getAll(caseRange(caseId)) as IDBRequest<StoredEvent[]>)),
+    getMeta: <T>(key: string) => get<T>(key, meta),
+    setMeta: (key: string, value: unknown) => set(key, value, meta),
+    async appendAudit(entry: AuditEntry): Promise<void> {
+      await audit('readwrite', (s) => { s.add(entry); return promisifyRequest(s.transaction); });
+    },
+    listAudit: (): Promise<AuditEntry[]> => audit('readonly', (s) => promisifyRequest(s.getAll() as IDBRequest<AuditEntry[]>)),
+    /** Close the connection (a "reload" in tests opens a new one over the same database). */
+    async close(): Promise<void> {
+      const db = await dbp?.catch(() => undefined);
+      db?.close();
+      dbp = undefined;
+    },
+  };
+}

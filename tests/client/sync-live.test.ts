@@ -1,0 +1,65 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { SyncMessages } from '#shared/contracts/sync.ts';
+import { buildEvent } from '../factories/events.ts';
+import { eventually, newCaseId, newDbName, startTablet, stopTablets } from './sync-helpers.ts';
+import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
+
+let server: TestSyncServer;
+afterEach(async () => {
+  await stopTablets();
+  await server?.close();
+});
+
+describe('live sync between tablets', () => {
+  it('shows a tap from another tablet in the same case as it is stored', async () => {
+    server = await startTestSyncServer();
+    const caseId = newCaseId();
+    const a = startTablet(server.url, { dbName: newDbName() });
+    const b = startTablet(server.url, { dbName: newDbName() });
+    await Promise.all([a.openCase(caseId), b.openCase(caseId)]);
+    const tap = await a.recordTap({ caseId, kind: 'bleed', payload: { severity: 'spurting' } });
+    await eventually(() => expect(b.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state, i.seq])).toEqual([[tap.id, 'accepted', 1]]));
+  });
+
+  it('shows near-duplicate taps from two tablets as a pair, keeping both', async () => {
+    server = await startTestSyncServer();
+    const caseId = newCaseId();
+    const a = startTablet(server.url, { dbName: newDbName() });
+    const b = startTablet(server.url, { dbName: newDbName() });
+    await Promise.all([a.openCase(caseId), b.openCase(caseId)]);
+    await a.recordTap({ caseId, kind: 'clip_fired', payload: { outcome: 'deployed' } });
+    await b.recordTap({ caseId, kind: 'clip_fired', payload: { outcome: 'deployed' } });
+    await eventually(() => expect(a.caseView(caseId).getSnapshot().items.filter((i) => i.state === 'accepted')).toHaveLength(2));
+    const snap = a.caseView(caseId).getSnapshot();
+    expect(snap.nearDuplicates).toHaveLength(1);
+    expect(snap.items).toHaveLength(2);
+  });
+
+  it('asks after a reconnect for what it missed since its last sequence, and gets only that', async () => {
+    server = await startTestSyncServer();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await tablet.openCase(caseId);
+    await tablet.recordTap({ caseId, kind: 'patient_in', payload: {} });
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().lastSeq).toBe(1));
+
+    const joins: number[] = [];
+    server.io.on('connection', (s) => s.on(SyncMessages.caseJoin, (m) => { joins.push(m.afterSeq); }));
+    for (const s of server.io.sockets.sockets.values()) s.conn.close(); // the network drops; Socket.IO reconnects by itself
+    server.storeFromElsewhere(caseId, [buildEvent('scope_in', { caseId, device: 'tablet-other' }), buildEvent('marking', { caseId, device: 'tablet-other' })]);
+
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.event.kind, i.seq])).toEqual([['patient_in', 1], ['scope_in', 2], ['marking', 3]]));
+    expect(joins).toEqual([1]);
+  });
+
+  it('stamps taps with the server clock offset measured at connect, and its uncertainty', async () => {
+    server = await startTestSyncServer({ clockShiftMs: 30_000 }); // the server runs 30 s ahead
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await eventually(() => expect(tablet.status.getSnapshot().clock).not.toBeNull());
+    const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    // On loopback the round trip is a few ms, so θ is within δ/2 of the 30 000 ms shift (RFC 5905 §8).
+    expect(Math.abs(tap.offsetMs - 30_000)).toBeLessThanOrEqual((tap.offsetUncertaintyMs ?? 0) + 1);
+    expect(tap.offsetUncertaintyMs).toBeLessThan(100);
+  });
+});

@@ -1,0 +1,112 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import type { TapState } from '@/sync/index.ts';
+import { eventually, newCaseId, newDbName, OFFLINE_URL, readOutboxRaw, startTablet, stopTablets } from './sync-helpers.ts';
+import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
+
+let server: TestSyncServer | undefined;
+afterEach(async () => {
+  await stopTablets();
+  await server?.close();
+  server = undefined;
+});
+
+describe('the outbox on the tablet (offline)', () => {
+  it('shows a tap at once as saving, and resolves only after the strict IndexedDB write committed', async () => {
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const tablet = startTablet(OFFLINE_URL, { dbName });
+    const view = tablet.caseView(caseId);
+    const seen: TapState[] = [];
+    view.subscribe(() => { const s = view.getSnapshot().items[0]?.state; if (s && seen.at(-1) !== s) seen.push(s); });
+
+    await tablet.ready;
+    const tap = tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    expect(view.getSnapshot().items.map((i) => i.state)).toEqual(['saving']); // within the call, before any write
+    const event = await tap;
+
+    expect(seen).toEqual(['saving', 'queued']);
+    const rows = await readOutboxRaw(dbName);
+    expect(rows.map((r) => [r.event.id, r.state])).toEqual([[event.id, 'queued']]);
+    expect(tablet.status.getSnapshot().lastWrite?.durability).toBe('strict');
+    expect(event).toMatchObject({ caseId, kind: 'scope_in', author: 'user-test-nurse', offsetMs: 0, offsetUncertaintyMs: null });
+    expect(event.device).toBe(tablet.deviceId);
+  });
+
+  it('keeps queued taps across a reload, with the same device id, and counts them as waiting', async () => {
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const first = startTablet(OFFLINE_URL, { dbName });
+    const a = await first.recordTap({ caseId, kind: 'patient_in', payload: {} });
+    const b = await first.recordTap({ caseId, kind: 'clip_fired', payload: { outcome: 'deployed', purpose: 'closure' } });
+    const device = first.deviceId;
+    await first.stop();
+
+    const reloaded = startTablet(OFFLINE_URL, { dbName });
+    await reloaded.ready;
+    expect(reloaded.deviceId).toBe(device);
+    expect(reloaded.status.getSnapshot()).toMatchObject({ state: 'offline', waiting: 2, refused: [] });
+    await reloaded.openCase(caseId);
+    expect(reloaded.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[a.id, 'queued'], [b.id, 'queued']]);
+  });
+
+  it('refuses to take an invalid tap, shows nothing and stores nothing', async () => {
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const tablet = startTablet(OFFLINE_URL, { dbName });
+    // haemostasis needs `achieved` (shared/schemas/events.ts).
+    await expect(tablet.recordTap({ caseId, kind: 'haemostasis', payload: {} as never })).rejects.toThrow(/achieved/);
+    expect(tablet.caseView(caseId).getSnapshot().items).toEqual([]);
+    expect(await readOutboxRaw(dbName)).toEqual([]);
+  });
+});
+
+describe('sending what the outbox holds', () => {
+  it('sends queued taps when the tablet comes online and drops them from the outbox once acknowledged', async () => {
+    server = await startTestSyncServer();
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const offline = startTablet(OFFLINE_URL, { dbName });
+    const a = await offline.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    const b = await offline.recordTap({ caseId, kind: 'injection', payload: { agent: 'saline', volumeMl: 5 } });
+    await offline.stop();
+
+    const online = startTablet(server.url, { dbName });
+    await online.openCase(caseId);
+    await eventually(() => expect(online.status.getSnapshot()).toMatchObject({ state: 'online', waiting: 0 }));
+    expect(server.log(caseId).map((e) => [e.id, e.seq])).toEqual([[a.id, 1], [b.id, 2]]);
+    expect(online.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state, i.seq])).toEqual([[a.id, 'accepted', 1], [b.id, 'accepted', 2]]);
+    await eventually(async () => expect(await readOutboxRaw(dbName)).toEqual([]));
+    expect(server.pushes.flat()).toEqual([a.id, b.id]);
+  });
+
+  it('sends again when an ack is lost, and the server stores the event once (at-least-once, exactly-once effect)', async () => {
+    server = await startTestSyncServer({ dropAcks: 1 });
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName(), ackTimeoutMs: 200 });
+    // The case is not opened, so no broadcast of the room can confirm the event: only an ack can.
+    const e = await tablet.recordTap({ caseId, kind: 'bleed', payload: { severity: 'ooze' } });
+
+    await eventually(() => expect(tablet.status.getSnapshot().waiting).toBe(0));
+    expect(server.pushes.flat()).toEqual([e.id, e.id]);
+    expect(server.log(caseId)).toHaveLength(1);
+    expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.state, i.seq])).toEqual([['accepted', 1]]);
+  });
+
+  it('shows the full timeline after a reload offline, from the events kept on the tablet', async () => {
+    server = await startTestSyncServer();
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const online = startTablet(server.url, { dbName });
+    await online.openCase(caseId);
+    await online.recordTap({ caseId, kind: 'patient_in', payload: {} });
+    await online.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    await eventually(() => expect(online.status.getSnapshot().waiting).toBe(0));
+    await online.stop();
+
+    const offline = startTablet(OFFLINE_URL, { dbName });
+    await offline.openCase(caseId);
+    const snap = offline.caseView(caseId).getSnapshot();
+    expect(snap.loaded).toBe(true);
+    expect(snap.items.map((i) => [i.event.kind, i.state, i.seq])).toEqual([['patient_in', 'accepted', 1], ['scope_in', 'accepted', 2]]);
+  });
+});

@@ -1,0 +1,80 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { eventually, newCaseId, newDbName, readOutboxRaw, startTablet, stopTablets } from './sync-helpers.ts';
+import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
+
+let server: TestSyncServer;
+afterEach(async () => {
+  await stopTablets();
+  await server?.close();
+});
+
+/** The test server refuses any medication without a dose, and stores the rest. */
+const refuseDoseless = () => startTestSyncServer({
+  refuse: (e) => (e.kind === 'medication' && e.payload.dose === undefined ? 'A medication needs its dose' : null),
+});
+
+describe('refused events', () => {
+  it('stay on the tablet with their reason, across a reload, while the others of the batch are stored', async () => {
+    server = await refuseDoseless();
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName });
+    await tablet.openCase(caseId);
+    const ok = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'midazolam' } });
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [{ id: bad.id, reason: 'A medication needs its dose' }] }));
+    await tablet.stop();
+
+    const reloaded = startTablet(server.url, { dbName });
+    await reloaded.openCase(caseId);
+    await eventually(() => expect(reloaded.status.getSnapshot().state).toBe('online'));
+    const items = reloaded.caseView(caseId).getSnapshot().items;
+    expect(items.map((i) => [i.id, i.state, i.reason])).toEqual([[ok.id, 'accepted', null], [bad.id, 'refused', 'A medication needs its dose']]);
+    expect((await readOutboxRaw(dbName)).map((r) => r.state)).toEqual(['refused']);
+    expect(server.pushes.flat().filter((id) => id === bad.id)).toHaveLength(1); // never sent again by itself
+  });
+
+  it('are fixed by sending a new event with a new id, keeping the time of the tap', async () => {
+    server = await refuseDoseless();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await tablet.openCase(caseId);
+    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'midazolam' } });
+    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+
+    const fixed = await tablet.resubmitRefused(bad.id, { payload: { drug: 'midazolam', dose: 2, unit: 'mg', route: 'IV' } });
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
+    expect(fixed.id).not.toBe(bad.id);
+    expect(fixed.deviceTime).toBe(bad.deviceTime);
+    expect(server.log(caseId).map((e) => e.id)).toEqual([fixed.id]);
+    expect((await tablet.listAudit()).map((a) => [a.action, a.event.id, a.recordedAs])).toEqual([['replaced', bad.id, fixed.id]]);
+  });
+
+  it('are discarded only with a recorded remark saying what and why, and an audit entry on the tablet', async () => {
+    server = await refuseDoseless();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await tablet.openCase(caseId);
+    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'fentanyl' } });
+    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+
+    await tablet.discardRefused(bad.id, 'Given before the case, already charted');
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
+    const [remark] = server.log(caseId);
+    expect(remark?.kind).toBe('remark');
+    const text = remark?.kind === 'remark' ? remark.payload.text : '';
+    expect(text).toContain(bad.id);
+    expect(text).toContain('A medication needs its dose');
+    expect(text).toContain('Given before the case, already charted');
+    const audit = await tablet.listAudit();
+    expect(audit.map((a) => [a.action, a.event.id, a.why, a.recordedAs])).toEqual([['discarded', bad.id, 'Given before the case, already charted', remark?.id]]);
+  });
+
+  it('cannot be discarded when the event is not a refused one', async () => {
+    server = await refuseDoseless();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    const ok = await tablet.recordTap({ caseId, kind: 'scope_out', payload: {} });
+    await expect(tablet.discardRefused(ok.id, 'no reason')).rejects.toThrow(/No refused event/);
+  });
+});

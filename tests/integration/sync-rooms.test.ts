@@ -1,0 +1,122 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { asBrowser } from './factories.ts';
+import { createTestContext, type TestContext } from './helpers/app.ts';
+import { join, newCase, push, recordedBy, signedInTeam, startNode, stopAll, tablet, tap, type SignedInTeam } from './sync-helpers.ts';
+
+let t: TestContext;
+let nodeA: string;
+let nodeB: string;
+let team: SignedInTeam;
+beforeAll(async () => {
+  t = await createTestContext();
+  // Two server nodes over one database: rooms are shared through the Socket.IO Postgres adapter.
+  const [a, b] = await Promise.all([startNode(t), startNode(t)]);
+  nodeA = a.url;
+  nodeB = b.url;
+  team = await signedInTeam(t);
+});
+afterAll(async () => {
+  await stopAll();
+  await t?.close();
+});
+
+const eventually = <T>(check: () => T) => vi.waitFor(check, { timeout: 5_000, interval: 20 });
+
+describe('case rooms', () => {
+  it('tells the other tablets in the case what was stored, after commit, and no one outside the room', async () => {
+    const caseId = await newCase(t, team);
+    const elsewhere = await newCase(t, team);
+    const [a, b, c] = await Promise.all([tablet(nodeA, team.cookies.nurse), tablet(nodeA, team.cookies.endoscopist), tablet(nodeA, team.cookies.supervisor)]);
+    await Promise.all([join(a, caseId), join(b, caseId), join(c, elsewhere)]);
+    const seenByB = recordedBy(b);
+    const seenByC = recordedBy(c);
+    const e = tap('bleed', caseId, team.members.nurse.id, { payload: { severity: 'spurting', vesselMm: 1 } });
+    await push(a, caseId, [e]);
+    await eventually(() => expect(seenByB).toEqual([{ caseId, events: [expect.objectContaining({ id: e.id, seq: 1, payload: { severity: 'spurting', vesselMm: 1 } })] }]));
+    expect(seenByC).toEqual([]);
+  });
+
+  it('lets a tablet on node A see an event pushed on node B (Postgres adapter)', async () => {
+    const caseId = await newCase(t, team);
+    const onA = await tablet(nodeA, team.cookies.nurse);
+    const onB = await tablet(nodeB, team.cookies.endoscopist);
+    await Promise.all([join(onA, caseId), join(onB, caseId)]);
+    const seenOnA = recordedBy(onA);
+    const e = tap('clip_fired', caseId, team.members.endoscopist.id, { payload: { outcome: 'deployed', purpose: 'haemostasis' } });
+    expect(await push(onB, caseId, [e])).toMatchObject({ results: [{ status: 'accepted', seq: 1 }] });
+    await eventually(() => expect(seenOnA.flatMap((m) => m.events.map((x) => [x.id, x.seq]))).toEqual([[e.id, 1]]));
+  });
+
+  it('resumes after a reconnect from the last sequence held: only what came after it', async () => {
+    const caseId = await newCase(t, team);
+    const s = await tablet(nodeA, team.cookies.nurse);
+    const first = [tap('patient_in', caseId, team.members.nurse.id), tap('scope_in', caseId, team.members.nurse.id)];
+    await push(s, caseId, first);
+    s.disconnect();
+    const other = await tablet(nodeB, team.cookies.endoscopist);
+    const missed = [tap('marking', caseId, team.members.endoscopist.id), tap('injection', caseId, team.members.endoscopist.id)];
+    await push(other, caseId, missed);
+
+    s.connect();
+    await new Promise((resolve) => s.once('connect', () => resolve(null)));
+    const ack = await join(s, caseId, 2);
+    expect(ack).toMatchObject({ status: 'recording', lastSeq: 4, hasMore: false, events: missed.map((e, i) => ({ id: e.id, seq: i + 3 })) });
+  });
+
+  it('answers a long record page by page', async () => {
+    const caseId = await newCase(t, team);
+    const s = await tablet(nodeA, team.cookies.nurse);
+    const many = Array.from({ length: 501 }, () => tap('coagulation', caseId, team.members.nurse.id));
+    await push(s, caseId, many.slice(0, 500));
+    await push(s, caseId, many.slice(500));
+    const page1 = await join(s, caseId, 0);
+    expect(page1).toMatchObject({ lastSeq: 501, hasMore: true, events: many.slice(0, 500).map((e, i) => ({ id: e.id, seq: i + 1 })) });
+    const page2 = await join(s, caseId, 500);
+    expect(page2).toMatchObject({ hasMore: false, events: [{ id: many[500]!.id, seq: 501 }] });
+  });
+
+  it('writes the reading of a whole record to the audit log', async () => {
+    const caseId = await newCase(t, team);
+    const s = await tablet(nodeA, team.cookies.supervisor);
+    await join(s, caseId, 0);
+    const res = await fetch(`${nodeA}/api/audit?entityType=case&entityId=${caseId}&action=record.view`, { headers: asBrowser(team.cookies.admin) });
+    const body = await res.json() as { entries: { user: { id: string } | null; action: string }[] };
+    expect(body.entries).toEqual([expect.objectContaining({ action: 'record.view', user: expect.objectContaining({ id: team.members.supervisor.id }) })]);
+  });
+});
+
+describe('the event log over HTTP', () => {
+  it('takes a batch by POST with the same per-event answers, and broadcasts it to the room', async () => {
+    const caseId = await newCase(t, team);
+    const watcher = await tablet(nodeB, team.cookies.endoscopist);
+    await join(watcher, caseId);
+    const seen = recordedBy(watcher);
+    const good = tap('scope_in', caseId, team.members.nurse.id);
+    const bad = { ...tap('haemostasis', caseId, team.members.nurse.id), payload: {} };
+    const res = await fetch(`${nodeA}/api/cases/${caseId}/events`, {
+      method: 'POST', headers: { ...asBrowser(team.cookies.nurse), 'content-type': 'application/json' }, body: JSON.stringify({ events: [good, bad] }),
+    });
+    expect(res.status).toBe(200);
+    expect(await res.json()).toMatchObject({ results: [{ id: good.id, status: 'accepted', seq: 1 }, { id: bad.id, status: 'refused', reason: expect.stringMatching(/payload\.achieved/) }] });
+    await eventually(() => expect(seen.flatMap((m) => m.events.map((e) => e.id))).toEqual([good.id]));
+  });
+
+  it('reads the events after a sequence by GET, and refuses a supervisor\'s POST and another unit\'s reader', async () => {
+    const caseId = await newCase(t, team);
+    const s = await tablet(nodeA, team.cookies.nurse);
+    const batch = [tap('patient_in', caseId, team.members.nurse.id), tap('scope_in', caseId, team.members.nurse.id), tap('scope_out', caseId, team.members.nurse.id)];
+    await push(s, caseId, batch);
+    const res = await fetch(`${nodeA}/api/cases/${caseId}/events?after=1`, { headers: asBrowser(team.cookies.supervisor) });
+    expect(await res.json()).toMatchObject({ lastSeq: 3, hasMore: false, events: [{ id: batch[1]!.id, seq: 2 }, { id: batch[2]!.id, seq: 3 }] });
+
+    const post = await fetch(`${nodeA}/api/cases/${caseId}/events`, {
+      method: 'POST', headers: { ...asBrowser(team.cookies.supervisor), 'content-type': 'application/json' }, body: JSON.stringify({ events: [tap('marking', caseId, team.members.nurse.id)] }),
+    });
+    expect(post.status).toBe(403);
+    const other = await signedInTeam(t);
+    expect((await fetch(`${nodeA}/api/cases/${caseId}/events`, { headers: asBrowser(other.cookies.nurse) })).status).toBe(404);
+    const badQuery = await fetch(`${nodeA}/api/cases/${caseId}/events?after=-4`, { headers: asBrowser(team.cookies.nurse) });
+    expect(badQuery.status).toBe(400);
+    expect(await badQuery.json()).toMatchObject({ issues: [{ path: 'after' }] });
+  });
+});
