@@ -1,0 +1,52 @@
+import type { BleedEpisode, CheckRecord, Counts, TimelineEvent, TimelineEventOf } from './types.ts';
+
+/** Sums of millilitres kept to a thousandth, so 0.1 + 0.2 reads 0.3. */
+const roundMl = (x: number) => Math.round(x * 1000) / 1000;
+
+export function counts(timeline: TimelineEvent[], bleeds: BleedEpisode[]): Counts {
+  const c: Counts = {
+    clipsDeployed: 0, clipsMisfired: 0, loopsPlaced: 0, devicesApplied: 0, bleeds: bleeds.length,
+    bleedsOpen: bleeds.filter((b) => b.controlledMs === null).length,
+    haemostasisAttempts: bleeds.reduce((n, b) => n + b.attempts, 0), injections: 0, injectionMl: 0, images: 0, medications: 0,
+  };
+  let ml = 0;
+  for (const e of timeline) {
+    switch (e.kind) {
+      case 'clip_fired': if (e.payload.outcome === 'deployed') c.clipsDeployed++; else c.clipsMisfired++; break;
+      case 'loop_placed': c.loopsPlaced++; break;
+      case 'device_applied': c.devicesApplied++; break;
+      case 'injection': c.injections++; ml += e.payload.volumeMl ?? 0; break;
+      case 'image': c.images++; break;
+      case 'medication': c.medications++; break;
+      default: break;
+    }
+  }
+  c.injectionMl = roundMl(ml);
+  return c;
+}
+
+/** En bloc and pieces from the resection-complete tap (the first one, as the resection phase uses). */
+export function resectionOutcome(timeline: TimelineEvent[]): { enBloc: boolean | null; pieces: number | null } {
+  const done = timeline.find((e): e is TimelineEventOf<'resection_complete'> => e.kind === 'resection_complete');
+  return { enBloc: done?.payload.enBloc ?? null, pieces: done?.payload.pieces ?? null };
+}
+
+/**
+ * A check (time-out or sign-out): present if one was recorded and not skipped (the first such), else
+ * skipped with the reason of the last skip, else missing.
+ */
+export function checkRecord(timeline: TimelineEvent[], kind: 'time_out' | 'sign_out'): CheckRecord {
+  let done: TimelineEventOf<'time_out' | 'sign_out'> | null = null;
+  let skipped: TimelineEventOf<'time_out' | 'sign_out'> | null = null;
+  for (const e of timeline) {
+    if (e.kind !== kind) continue;
+    if (e.payload.skipped) skipped = e;
+    else if (!done) done = e;
+  }
+  const e = done ?? skipped;
+  if (!e) return { status: 'missing', eventId: null, atMs: null, reason: null, answeredNo: [] };
+  return {
+    status: done ? 'present' : 'skipped', eventId: e.id, atMs: e.atMs, reason: done ? null : e.payload.skipped?.reason ?? null,
+    answeredNo: (e.payload.items ?? []).filter((i) => i.answer === 'no').map((i) => i.key),
+  };
+}

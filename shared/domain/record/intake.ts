@@ -1,0 +1,118 @@
+import type { z } from 'zod';
+import { payloadSchemas, type EventKind } from '../../schemas/events.ts';
+import type { Problem } from './types.ts';
+
+/** One distinct event of the log, checked against the vocabulary but not yet corrected. */
+export type LogEntry = {
+  id: string;
+  kind: string;
+  atMs: number;
+  seq: number | null;
+  author: string | null;
+  device: string | null;
+  /** The payload as delivered. */
+  raw: unknown;
+  /** The parsed payload when it is valid for its kind, else null. */
+  payload: Record<string, unknown> | null;
+  status: 'ok' | 'unknown_kind' | 'invalid_payload';
+  /** Why the payload was refused. */
+  issue: string | null;
+  /** Set by the corrections: the effective voids of this event, and the amendments applied to it. */
+  voidedBy: string[] | null;
+  amendedBy: string[] | null;
+};
+
+const hasOwn = (o: object, k: string) => Object.prototype.hasOwnProperty.call(o, k);
+
+export function isEventKind(kind: string): kind is EventKind {
+  return hasOwn(payloadSchemas, kind);
+}
+
+/** Zod's issues in one line, naming each field at fault. */
+export function describeIssues(error: z.ZodError): string {
+  return error.issues.slice(0, 3).map((i) => `${i.path.length ? i.path.join('.') : 'payload'}: ${i.message}`).join('; ');
+}
+
+export function validatePayload(kind: EventKind, payload: unknown): { ok: true; data: Record<string, unknown> } | { ok: false; issue: string } {
+  const parsed = payloadSchemas[kind].safeParse(payload);
+  return parsed.success ? { ok: true, data: parsed.data as Record<string, unknown> } : { ok: false, issue: describeIssues(parsed.error) };
+}
+
+const str = (v: unknown) => (typeof v === 'string' ? v : null);
+
+// Per-event work stays free of inner closures: the TypeScript loader's name-keeping wraps each one made.
+function toEntry(item: unknown): LogEntry | string {
+  if (typeof item !== 'object' || item === null || Array.isArray(item)) return 'an event is not an object';
+  const e = item as Record<string, unknown>;
+  if (typeof e.id !== 'string' || e.id.length === 0 || e.id.length > 64) return 'an event has no usable id (a string of 1 to 64 characters)';
+  if (typeof e.kind !== 'string') return `event ${e.id} has no kind`;
+  if (typeof e.atMs !== 'number' || !Number.isFinite(e.atMs)) return `event ${e.id} has no finite corrected time (atMs)`;
+  const seq = typeof e.seq === 'number' && Number.isFinite(e.seq) ? e.seq : null;
+  const raw = e.payload === undefined ? {} : e.payload;
+  return { id: e.id, kind: e.kind, atMs: e.atMs, seq, author: str(e.author), device: str(e.device), raw, payload: null, status: 'ok', issue: null, voidedBy: null, amendedBy: null };
+}
+
+function validate(entry: LogEntry): void {
+  if (!isEventKind(entry.kind)) {
+    entry.status = 'unknown_kind';
+    entry.issue = `unknown kind "${entry.kind.slice(0, 40)}"`;
+    return;
+  }
+  const parsed = payloadSchemas[entry.kind].safeParse(entry.raw);
+  if (parsed.success) entry.payload = parsed.data as Record<string, unknown>;
+  else { entry.status = 'invalid_payload'; entry.issue = describeIssues(parsed.error); }
+}
+
+const keyOf = (e: LogEntry) => `${e.kind}\u0000${e.atMs}\u0000${stableJson(e.raw)}`;
+
+/** Which of two deliveries of one id stands: the stored one (lowest seq), then the earlier, then by content. */
+function preferred(a: LogEntry, b: LogEntry): LogEntry {
+  const sa = a.seq ?? Infinity;
+  const sb = b.seq ?? Infinity;
+  if (sa !== sb) return sa < sb ? a : b;
+  if (a.atMs !== b.atMs) return a.atMs < b.atMs ? a : b;
+  return keyOf(a) <= keyOf(b) ? a : b;
+}
+
+export type Intake = { entries: LogEntry[]; byId: Map<string, LogEntry> };
+
+/**
+ * Reads the delivered events: each id once (at-least-once delivery repeats events; a repeat counts once),
+ * each checked against the vocabulary. A repeat that differs in content is kept by a fixed rule and
+ * reported, so the result does not depend on delivery order.
+ */
+export function intake(events: unknown, problems: Problem[]): Intake {
+  const byId = new Map<string, LogEntry>();
+  if (!Array.isArray(events)) {
+    problems.push({ code: 'malformed_event', eventId: null, message: 'the event log is not a list' });
+    return { entries: [], byId };
+  }
+  const conflicted = new Set<string>();
+  for (const item of events) {
+    const entry = toEntry(item);
+    if (typeof entry === 'string') { problems.push({ code: 'malformed_event', eventId: null, message: entry }); continue; }
+    const before = byId.get(entry.id);
+    if (!before) { byId.set(entry.id, entry); continue; }
+    if (keyOf(before) !== keyOf(entry)) conflicted.add(entry.id);
+    byId.set(entry.id, preferred(before, entry));
+  }
+  for (const id of conflicted) {
+    problems.push({ code: 'duplicate_conflict', eventId: id, message: `event ${id} was delivered more than once with different content; the stored copy is used` });
+  }
+  const entries = [...byId.values()];
+  for (const entry of entries) validate(entry);
+  return { entries, byId };
+}
+
+/**
+ * JSON with object keys sorted, so that two deliveries of one payload compare equal whatever their key
+ * order. Depth-limited and total (no throw on values JSON cannot hold), as it only compares.
+ */
+function stableJson(v: unknown, depth = 0): string {
+  if (depth > 32) return '…';
+  if (typeof v === 'bigint') return `${v}n`;
+  if (typeof v !== 'object' || v === null) return JSON.stringify(v) ?? String(v);
+  if (Array.isArray(v)) return `[${v.map((x) => stableJson(x, depth + 1)).join(',')}]`;
+  const o = v as Record<string, unknown>;
+  return `{${Object.keys(o).sort().map((k) => `${JSON.stringify(k)}:${stableJson(o[k], depth + 1)}`).join(',')}}`;
+}
