@@ -44,6 +44,7 @@ export function Component() {
           </NavLink>
           <nav aria-label="Main" className="flex flex-wrap gap-1">
             <NavLink to="/cases" end className={navClass}>Day list</NavLink>
+            <NavLink to="/catalogue" className={navClass}>Catalogue</NavLink>
             {can(me.role, 'unit.manageUsers') && <NavLink to="/admin/invite" className={navClass}>Invite</NavLink>}
           </nav>
           <div className="ml-auto flex flex-wrap items-center gap-3">

@@ -1,7 +1,8 @@
-import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
 import { can } from '#shared/domain/permissions.ts';
 import { caseQueryOptions } from '@/features/cases/api/get-case.ts';
 import { CaseOverview } from '@/features/cases/components/case-overview.tsx';
+import { buttonClass } from '@/components/ui/button.tsx';
 import { queryClient } from '@/lib/query-client.ts';
 import { useMe } from '@/lib/session.ts';
 
@@ -17,6 +18,10 @@ export function Component() {
   return (
     <div className="mx-auto w-full max-w-5xl px-4 py-6 sm:px-6">
       <CaseOverview caseId={id} canRecord={can(me.role, 'event.record')} />
+      <nav aria-label="The case's record" className="mt-5 flex flex-wrap gap-3">
+        <Link to={`/cases/${id}/record`} className={buttonClass('secondary', 'lg')}>The record</Link>
+        <Link to={`/cases/${id}/specimens`} className={buttonClass('secondary', 'lg')}>Specimens</Link>
+      </nav>
     </div>
   );
 }

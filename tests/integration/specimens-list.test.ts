@@ -1,0 +1,100 @@
+import { execFileSync } from 'node:child_process';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { and, eq } from 'drizzle-orm';
+import { auditLog } from '#server/db/schema/index.ts';
+import { specimenListSchema, specimenSchema } from '#shared/schemas/specimens.ts';
+import { createTestContext, type TestContext } from './helpers/app.ts';
+import { api, binary, buildWard, caseFor, newId, type Ward } from './record-fixtures.ts';
+
+let t: TestContext;
+let w: Ward;
+let other: Ward;
+
+beforeAll(async () => {
+  t = await createTestContext();
+  [w, other] = await Promise.all([buildWard(t), buildWard(t)]);
+});
+afterAll(() => t.close());
+
+const path = (caseId: string, rest = '') => `/api/cases/${caseId}/specimens${rest}`;
+
+describe('the specimen list', () => {
+  it('a nurse lists a specimen with its retrieval, pieces and size; the area is the ellipse π/4 · long · short', async () => {
+    const c = await caseFor(t, w);
+    const res = await api(t, w.cookies.nurse).post(path(c.id), { label: 'A', retrievalMethod: 'net', pieces: 1, longMm: 32, shortMm: 25 });
+    expect(res.status).toBe(201);
+    const s = specimenSchema.parse(res.body);
+    expect(s).toMatchObject({ label: 'A', retrievalMethod: 'net', pieces: 1, handoffStatus: 'pending', containerId: null });
+    // π/4 · 32 · 25 = 200π ≈ 628.32 mm² (area of an ellipse, Archimedes; shared/domain/geometry.ts).
+    expect(s.areaMm2).toBeCloseTo(200 * Math.PI, 9);
+    const list = specimenListSchema.parse((await api(t, w.cookies.supervisor).get(path(c.id))).body);
+    expect(list.specimens.map((x) => x.id)).toEqual([s.id]);
+  });
+
+  it('labels and hands a specimen over, step by step, and audits each change', async () => {
+    const c = await caseFor(t, w);
+    const { body: s } = await api(t, w.cookies.nurse).post(path(c.id), { label: 'B' });
+    const labelled = await api(t, w.cookies.nurse).patch(path(c.id, `/${s.id}`), { containerId: 'POT-22', handoffStatus: 'labelled' });
+    expect(labelled.body).toMatchObject({ containerId: 'POT-22', handoffStatus: 'labelled', label: 'B' });
+    const handed = await api(t, w.cookies.endoscopist).patch(path(c.id, `/${s.id}`), { handoffStatus: 'handed_over' });
+    expect(handed.body).toMatchObject({ containerId: 'POT-22', handoffStatus: 'handed_over' });
+    const changes = await t.db.select().from(auditLog).where(and(eq(auditLog.entityId, s.id), eq(auditLog.action, 'specimen.update')));
+    expect(changes.map((x) => x.userId).sort()).toEqual([w.members.nurse.id, w.members.endoscopist.id].sort());
+  });
+
+  it('keeps the id the tablet made, so a repeated create stores one specimen', async () => {
+    const c = await caseFor(t, w);
+    const id = newId();
+    const first = await api(t, w.cookies.nurse).post(path(c.id), { id, label: 'C' });
+    const again = await api(t, w.cookies.nurse).post(path(c.id), { id, label: 'C' });
+    expect([first.status, again.status]).toEqual([201, 200]);
+    expect((await api(t, w.cookies.nurse).get(path(c.id))).body.specimens).toHaveLength(1);
+  });
+
+  it('refuses a short axis longer than the long one, an unknown method and an unknown status, naming each field', async () => {
+    const c = await caseFor(t, w);
+    const axes = await api(t, w.cookies.nurse).post(path(c.id), { label: 'D', longMm: 10, shortMm: 12 });
+    expect(axes.status).toBe(400);
+    expect(axes.body.issues[0].path).toBe('shortMm');
+    expect((await api(t, w.cookies.nurse).post(path(c.id), { label: 'D', retrievalMethod: 'forceps' })).body.issues[0].path).toBe('retrievalMethod');
+    const { body: s } = await api(t, w.cookies.nurse).post(path(c.id), { label: 'D', longMm: 10 });
+    expect((await api(t, w.cookies.nurse).patch(path(c.id, `/${s.id}`), { handoffStatus: 'lost' })).body.issues[0].path).toBe('handoffStatus');
+    // The stored long axis counts too: a later short axis above it is refused.
+    const later = await api(t, w.cookies.nurse).patch(path(c.id, `/${s.id}`), { shortMm: 11 });
+    expect(later.status).toBe(409);
+    expect(later.body.issues[0].path).toBe('shortMm');
+  });
+
+  it('prints a container label: a DataMatrix PNG, and a PDF naming the patient and the specimen', async () => {
+    const c = await caseFor(t, w);
+    const { body: s } = await api(t, w.cookies.nurse).post(path(c.id), { label: 'A — margin', containerId: 'POT-9' });
+    const png = await binary(t, w.cookies.nurse, path(c.id, `/${s.id}/label.png`));
+    expect(png.status).toBe(200);
+    // PNG signature: 89 50 4E 47 0D 0A 1A 0A (PNG specification, ISO/IEC 15948 §5.2).
+    expect((png.body as Buffer).subarray(0, 8).toString('hex')).toBe('89504e470d0a1a0a');
+    const pdf = await binary(t, w.cookies.nurse, path(c.id, `/${s.id}/label.pdf?symbology=code128`));
+    expect(pdf.headers['content-type']).toBe('application/pdf');
+    // Read back with Poppler's pdftotext (see record-pdf.test.ts for why).
+    const text = execFileSync('pdftotext', ['-layout', '-enc', 'UTF-8', '-', '-'], { input: pdf.body as Buffer }).toString('utf8');
+    expect(text).toContain('Specimen A — margin');
+    expect(text).toContain(`Hospital no. P-`);
+    expect(text).toContain('Container POT-9');
+    expect(text).toContain(s.id);
+    const printed = await t.db.select().from(auditLog).where(and(eq(auditLog.entityId, s.id), eq(auditLog.action, 'specimen.label')));
+    expect(printed).toHaveLength(2);
+    expect((await api(t, w.cookies.nurse).get(path(c.id, `/${s.id}/label.gif`))).status).toBe(400);
+  });
+
+  it('is written by nurses and endoscopists while the record is open, read by the unit, hidden from others', async () => {
+    const c = await caseFor(t, w);
+    expect((await api(t, w.cookies.supervisor).post(path(c.id), { label: 'E' })).status).toBe(403);
+    expect((await api(t, w.cookies.admin).post(path(c.id), { label: 'E' })).status).toBe(403);
+    expect((await api(t, other.cookies.nurse).post(path(c.id), { label: 'E' })).status).toBe(404);
+    expect((await api(t, other.cookies.nurse).get(path(c.id))).status).toBe(404);
+    const closed = await caseFor(t, w, { status: 'closed', closedAt: new Date() });
+    const late = await api(t, w.cookies.nurse).post(path(closed.id), { label: 'E' });
+    expect(late.status).toBe(409);
+    expect((await api(t, w.cookies.admin).get(path(closed.id))).status).toBe(200);
+    expect((await api(t).get(path(closed.id))).status).toBe(401);
+  });
+});
