@@ -60,7 +60,7 @@ async function main() {
     for (const [port, what] of [[ports.app, 'browser-test server'], [ports.smtp, 'test SMTP fake'], [ports.mailWeb, 'test mail page'], [ports.s3, 'test S3 fake']]) {
       await assertPortFree(port, what);
     }
-    const installed = await setup.ensureChromium({ log });
+    const installed = await setup.ensureDebianPackages(setup.TEST_PACKAGES, { log });
     const pg = await ensurePostgres({ dataDir: dirs.pgTest, port: ports.pg, database: integrationDatabase, durable: false, log });
     if (pg.startedHere) onCleanup(() => { log('Stopping the test PostgreSQL cluster…'); pg.stop(); });
     secret = setup.ensureSecret(dirs.authSecret);
@@ -75,7 +75,7 @@ async function main() {
     await setup.startFakes({ root, ports, mailDir: dirs.testMail, s3Dir: dirs.testS3, bucket: S3_BUCKET });
     rmSync(results, { recursive: true, force: true });
     mkdirSync(results, { recursive: true });
-    return `${installed ? 'installed Chromium; ' : ''}${databaseUrl(ports.pg, integrationDatabase)}, ${databaseUrl(ports.pg, e2eDatabase)}`;
+    return `${installed.length ? `installed ${installed.join(', ')}; ` : ''}${databaseUrl(ports.pg, integrationDatabase)}, ${databaseUrl(ports.pg, e2eDatabase)}`;
   });
   if (!ready) return;
 

@@ -95,14 +95,25 @@ export async function startFakes({ root, ports, mailDir, s3Dir, bucket }) {
   return { mail, s3 };
 }
 
-/** Debian's Chromium for the browser tests (never a downloaded browser build). */
-export async function ensureChromium({ log = console.log } = {}) {
-  if (existsSync('/usr/bin/chromium')) return false;
-  if (process.getuid?.() !== 0) throw new Error('Chromium is missing: install Debian\'s chromium package (apt-get install -y chromium)');
-  log('Installing Chromium from Debian\'s packages (apt-get)…');
+/**
+ * Debian packages the tests need, installed with apt-get when their binary is missing: Chromium for the
+ * browser tests (never a downloaded browser build) and poppler-utils, whose `pdftotext` reads the
+ * generated PDFs back. Returns the packages it installed.
+ */
+export const TEST_PACKAGES = [
+  { pkg: 'chromium', bin: '/usr/bin/chromium' },
+  { pkg: 'poppler-utils', bin: '/usr/bin/pdftotext' },
+];
+
+export async function ensureDebianPackages(wanted = TEST_PACKAGES, { log = console.log } = {}) {
+  const missing = wanted.filter((w) => !existsSync(w.bin));
+  if (!missing.length) return [];
+  const names = missing.map((m) => m.pkg);
+  if (process.getuid?.() !== 0) throw new Error(`Missing Debian packages: ${names.join(', ')} (apt-get install -y ${names.join(' ')})`);
+  log(`Installing ${names.join(', ')} from Debian's packages (apt-get)…`);
   const env = { DEBIAN_FRONTEND: 'noninteractive' };
   await mustRun('apt-get update', 'apt-get', ['update', '-qq'], { env: withEnv(env) });
-  await mustRun('Installing Chromium', 'apt-get', ['install', '-y', '-qq', '-o', 'DPkg::Lock::Timeout=600', 'chromium'], { env: withEnv(env) });
-  if (!existsSync('/usr/bin/chromium')) throw new Error('apt-get installed chromium but /usr/bin/chromium is not there');
-  return true;
+  await mustRun(`Installing ${names.join(', ')}`, 'apt-get', ['install', '-y', '-qq', '-o', 'DPkg::Lock::Timeout=600', ...names], { env: withEnv(env) });
+  for (const m of missing) if (!existsSync(m.bin)) throw new Error(`apt-get installed ${m.pkg} but ${m.bin} is not there`);
+  return names;
 }
