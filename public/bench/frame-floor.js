@@ -3,7 +3,7 @@
 //       the capture screen).
 // #put: a pointerdown handler that puts one record into IndexedDB with durability 'strict' and reports
 //       pointerdown → transaction complete (idb_floor), the same span tap_durable measures in the app.
-// window.benchRtt(n): n socket.io emit-with-ack round trips of the bare clock ping (raw_rtt).
+// window.benchRttConnect() then benchRttPing(): a bare socket.io emit-with-ack of the clock ping (raw_rtt).
 'use strict';
 (function () {
   var count = document.getElementById('count');
@@ -36,24 +36,20 @@
     });
   });
 
-  window.benchRtt = function (rounds) {
+  // raw_rtt: one socket of its own (the page's session cookie), and one bare emit-with-ack per call.
+  var socket = null;
+  window.benchRttConnect = function () {
     return new Promise(function (resolve, reject) {
       /* global io */
-      var socket = io({ transports: ['websocket'] });
-      var samples = [];
+      socket = io({ transports: ['websocket'] });
       socket.on('connect_error', function (err) { reject(new Error('socket: ' + err.message)); });
-      socket.on('connect', function () {
-        var i = 0;
-        var next = function () {
-          if (i++ >= rounds) { socket.close(); resolve(samples); return; }
-          var t0 = performance.now();
-          socket.emit('clock.ping', { t1: Date.now() }, function () {
-            samples.push(performance.now() - t0);
-            setTimeout(next, 5);
-          });
-        };
-        next();
-      });
+      socket.on('connect', function () { resolve(true); });
+    });
+  };
+  window.benchRttPing = function () {
+    return new Promise(function (resolve) {
+      var t0 = performance.now();
+      socket.emit('clock.ping', { t1: Date.now() }, function () { resolve(performance.now() - t0); });
     });
   };
 })();

@@ -29,7 +29,7 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
   try {
     const floor = await floorCtx.newPage();
     await floor.goto('/bench/frame-floor.html');
-    await floor.evaluate(installPaintProbe, { counter: '#count', row: null });
+    await floor.evaluate(installPaintProbe, { target: '#tap', counter: '#count', row: null });
     await floor.addScriptTag({ path: join(root, 'node_modules', 'socket.io-client', 'dist', 'socket.io.min.js') });
     await floor.evaluate(() => window.benchRttConnect());
     const cdpF = await floorCtx.newCDPSession(floor);
@@ -38,7 +38,7 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
 
     const pageA = await openCapture(a, caseId, newestId);
     const cdpA = await a.newCDPSession(pageA);
-    await pageA.evaluate(installPaintProbe, { counter: COUNTER, row: ROW });
+    await pageA.evaluate(installPaintProbe, { target: BUTTON, counter: COUNTER, row: ROW });
     await pageA.evaluate(() => performance.clearMarks('capture:tap-durable'));
     const buttonAt = await pageA.evaluate(centreOf, BUTTON);
 

@@ -7,9 +7,10 @@
  * frame's style, layout and paint); when the counter's text and, if asked, the newest row have changed,
  * a MessageChannel message posted from that frame runs after the frame is rendered, and that moment
  * is the sample (the rAF + MessageChannel "next paint" method). Installed in the capture phase at
- * window, so it reads the "before" state ahead of any handler of the page.
+ * window, so it reads the "before" state ahead of any handler of the page. Taps outside `target` are
+ * not measured.
  */
-export function installPaintProbe({ counter, row }) {
+export function installPaintProbe({ target, counter, row }) {
   const probe = { samples: [], taps: [], epochs: [] };
   window.__benchProbe = probe;
   const read = () => [
@@ -17,6 +18,8 @@ export function installPaintProbe({ counter, row }) {
     row ? (document.querySelector(row)?.getAttribute('data-event-id') ?? null) : null,
   ];
   window.addEventListener('pointerdown', (e) => {
+    // Only taps on the measured button count (the bare page has a second button, for IndexedDB).
+    if (!(e.target instanceof Element) || !e.target.closest(target)) return;
     const t0 = e.timeStamp;
     probe.taps.push(t0);
     probe.epochs.push(performance.timeOrigin + t0);

@@ -44,8 +44,11 @@ async function waitForHttp(url, child, timeoutMs = 60_000) {
   throw new Error(`The server did not answer at ${url} within ${timeoutMs} ms`);
 }
 
-/** Bring everything up; returns { origin, databaseUrl, stop }. `env` overrides the server's environment. */
-export async function startStack({ root, log = console.log, env: extraEnv = {} }) {
+/**
+ * Bring everything up; returns { origin, databaseUrl, stop }. `env` overrides the server's environment;
+ * `port` fixes the server's port (else a free one).
+ */
+export async function startStack({ root, log = console.log, env: extraEnv = {}, port = null }) {
   const stops = [];
   const stop = async () => {
     for (const s of stops.reverse()) {
@@ -65,7 +68,7 @@ export async function startStack({ root, log = console.log, env: extraEnv = {} }
       if (r.status !== 0) throw new Error(`vite build failed:\n${r.stderr}`);
     }
 
-    const ports = { ...testPorts, app: await freePort(), smtp: await freePort(), mailWeb: await freePort(), s3: await freePort() };
+    const ports = { ...testPorts, app: port ?? await freePort(), smtp: await freePort(), mailWeb: await freePort(), s3: await freePort() };
     const mailDir = join(dirs.data, 'bench-mail');
     const s3Dir = join(dirs.data, 'bench-s3');
     for (const d of [mailDir, s3Dir]) { rmSync(d, { recursive: true, force: true }); mkdirSync(d, { recursive: true }); }

@@ -35,6 +35,7 @@ export class Pusher {
   private batchSize: number;
   private timer: ReturnType<typeof setTimeout> | undefined;
   private stopped = false;
+  private readonly writes: Promise<void>[] = [];
 
   constructor(private readonly d: Deps) {
     this.batchSize = d.batchSize;
@@ -58,6 +59,7 @@ export class Pusher {
         if (!(await this.push(batch))) { this.retryLater(); break; }
         this.failures = 0;
       }
+      await Promise.all(this.writes.splice(0));
     } catch (err) {
       // An IndexedDB failure while applying answers: what is not settled goes back to the queue.
       this.d.onError((err as Error).message);
@@ -122,7 +124,12 @@ export class Pusher {
       else stored.push({ ...p.event, seq: r.seq, receivedAt: r.receivedAt } as StoredEvent);
     });
     await Promise.all(refusals);
-    await this.d.cases.accept(caseId, stored);
+    // The accepted events leave the outbox in memory at once; their IndexedDB writes go on while the
+    // next push travels (awaited before the pump ends; a failed write only means a resend, answered
+    // 'duplicate').
+    const written = this.d.cases.accept(caseId, stored);
+    written.catch(() => undefined); // seen by the pump's Promise.all; not an unhandled rejection meanwhile
+    this.writes.push(written);
   }
 
   private async refuse(p: Pending, reason: string): Promise<void> {

@@ -1,7 +1,10 @@
+import { useMemo } from 'react';
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { captureCaseQueryOptions, useCaptureCase } from '@/features/capture/api/get-case.ts';
 import { CaptureScreen } from '@/features/capture/components/capture-screen.tsx';
 import { tabletEngine } from '@/features/capture/sync-engine.ts';
+import { useCatalogue } from '@/features/catalogue/api/catalogue.ts';
+import { captureItemControl, itemName } from '@/features/devices/components/item-control.tsx';
 import { queryClient } from '@/lib/query-client.ts';
 import { useMe } from '@/lib/session.ts';
 import { SyncProvider } from '@/sync/react.ts';
@@ -24,9 +27,13 @@ export function Component() {
   const { id = '' } = useParams();
   const me = useMe();
   const summary = useCaptureCase(id).data ?? null;
+  // The devices feature's scan field as the sheet's item control, one component identity per case.
+  const ItemInput = useMemo(() => captureItemControl(id), [id]);
+  const catalogue = useCatalogue().data;
+  const itemLabel = useMemo(() => (itemId: string) => itemName(catalogue?.find((c) => c.id === itemId), itemId), [catalogue]);
   return (
     <SyncProvider engine={tabletEngine(me.user.id)}>
-      <CaptureScreen key={id} caseId={id} summary={summary} />
+      <CaptureScreen key={id} caseId={id} summary={summary} ItemInput={ItemInput} itemLabel={itemLabel} />
     </SyncProvider>
   );
 }

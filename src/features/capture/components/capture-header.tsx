@@ -1,0 +1,72 @@
+import { memo, useSyncExternalStore } from 'react';
+import { Link } from 'react-router';
+import type { CheckRecord } from '#shared/domain/record/types.ts';
+import type { CaseSummary } from '#shared/schemas/cases.ts';
+import { buttonClass } from '@/components/ui/button.tsx';
+import { useTheme } from '@/lib/theme.ts';
+import { useSyncEngine, useSyncStatus } from '@/sync/react.ts';
+import { CaseClock, type ClockView } from './case-clock.tsx';
+import { ChecksStatus } from './checks-status.tsx';
+import { ConnectionStrip } from './connection-strip.tsx';
+
+type Props = {
+  caseId: string;
+  summary: CaseSummary | null;
+  clock: ClockView;
+  timeOut: CheckRecord;
+  signOut: CheckRecord;
+  closed: boolean;
+  onTimeOut: () => void;
+  onSignOut: () => void;
+  onOpenRefused: () => void;
+};
+
+/**
+ * The recorder's header: who the case is for (name and hospital number, the identifiers a time-out
+ * checks), the case clock and phase, the two checks, the connection. Memoised: a tap redraws it only
+ * when one of these changed.
+ */
+export const CaptureHeader = memo(function CaptureHeader({ caseId, summary, clock, timeOut, signOut, closed, onTimeOut, onSignOut, onOpenRefused }: Props) {
+  const offsetMs = useClockOffset();
+  return (
+    <header className="flex flex-wrap items-center gap-x-3 gap-y-2 border-b-2 border-line bg-surface px-3 py-2">
+      <Link to={`/cases/${caseId}`} className={buttonClass('secondary', 'md')} aria-label="Back to the case page">←</Link>
+      <div className="min-w-0 max-w-[15rem] leading-tight">
+        <p className="truncate text-lg font-bold" data-testid="capture-patient">
+          {summary ? `${summary.patient.familyName.toUpperCase()}, ${summary.patient.givenName}` : 'Case'}
+        </p>
+        <p className="truncate text-sm text-muted">
+          {summary ? `${summary.patient.hospitalNumber} · ${summary.procedureType.toUpperCase()} · ${summary.room.name}` : caseId}
+        </p>
+      </div>
+      <CaseClock view={clock} offsetMs={offsetMs} />
+      <ChecksStatus timeOut={timeOut} signOut={signOut} closed={closed} onTimeOut={onTimeOut} onSignOut={onSignOut} />
+      <div className="ml-auto flex items-center gap-2">
+        <LiveConnection onOpenRefused={onOpenRefused} />
+        <ThemeToggle />
+      </div>
+    </header>
+  );
+});
+
+/** The connection strip, subscribed to the sync status on its own: a change of the waiting count redraws only it. */
+function LiveConnection({ onOpenRefused }: { onOpenRefused: () => void }) {
+  const status = useSyncStatus();
+  return <ConnectionStrip state={status.state} waiting={status.waiting} refused={status.refused.length} lastError={status.lastError} onOpenRefused={onOpenRefused} />;
+}
+
+/** Server minus tablet clock (ms, 0 before the first sample); re-renders its user only when it changes. */
+export function useClockOffset(): number {
+  const engine = useSyncEngine();
+  return useSyncExternalStore(engine.status.subscribe, () => engine.status.getSnapshot().clock?.offsetMs ?? 0);
+}
+
+/** Dim room or light, for this kind of screen. */
+function ThemeToggle() {
+  const [theme, setTheme] = useTheme('capture');
+  return (
+    <button type="button" className={buttonClass('secondary', 'md')} aria-pressed={theme === 'dim'} onClick={() => setTheme(theme === 'dim' ? 'paper' : 'dim')}>
+      {theme === 'dim' ? 'Light' : 'Dim'}
+    </button>
+  );
+}
