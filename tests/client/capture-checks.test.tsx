@@ -91,7 +91,8 @@ describe('events the server refuses', () => {
     await tap('clip-deployed');
     const open = await screen.findByTestId('refused-open');
     expect(open).toHaveTextContent('1 refused');
-    expect(screen.getByTestId('count-clips-deployed')).toHaveTextContent('0');
+    // The board redraws in a yielding, coalesced update after the status strip: wait for that frame.
+    await waitFor(() => expect(screen.getByTestId('count-clips-deployed')).toHaveTextContent('0'));
     await userEvent.click(open);
     expect(screen.getByText('Invented refusal for the test')).toBeInTheDocument();
     await userEvent.click(screen.getByRole('button', { name: 'Discard…' }));
