@@ -7,7 +7,7 @@ import { computedNotes } from './notes.ts';
 import { DEFAULT_IDLE_GAP_MS, idleGaps, phases, scopeIntervals } from './phases.ts';
 import { specimens, specimenSummary } from './specimen.ts';
 import { effectiveTimeline } from './timeline.ts';
-import type { CaseRecord, Problem, RecordEventInput, RecordOptions } from './types.ts';
+import type { CaseRecord, Problem, RecordEventInput, RecordOptions, TimelineEvent } from './types.ts';
 
 export type * from './types.ts';
 export { UNSPECIFIED_ITEM } from './devices.ts';
@@ -26,6 +26,43 @@ const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 const problemOrder = (a: Problem, b: Problem) => cmp(a.eventId ?? '', b.eventId ?? '') || cmp(a.code, b.code) || cmp(a.message, b.message);
 
 /**
+ * The kinds each pass reads. Every pass ignores the other kinds, so it is handed only its own events:
+ * one routing pass over the timeline instead of a full pass each keeps long logs cache-friendly
+ * (idle gaps alone need every event).
+ */
+const PASS_KINDS = {
+  scopes: ['scope_in', 'scope_out'],
+  phases: ['marking', 'injection', 'incision', 'dissection', 'resection_complete', 'closure_start', 'clip_fired', 'loop_placed', 'closure_complete', 'specimen_retrieved'],
+  bleeds: ['bleed', 'haemostasis', 'clip_fired', 'coagulation'],
+  devices: ['device_opened', 'device_wasted', 'clip_fired', 'loop_placed', 'device_applied'],
+  counts: ['clip_fired', 'loop_placed', 'device_applied', 'injection', 'image', 'medication'],
+  resection: ['resection_complete'],
+  timeOut: ['time_out'],
+  signOut: ['sign_out'],
+  specimens: ['specimen_retrieved'],
+  notes: ['loop_placed', 'muscle_defect'],
+} as const satisfies Record<string, readonly TimelineEvent['kind'][]>;
+type Pass = keyof typeof PASS_KINDS;
+
+const ROUTES: Map<string, Pass[]> = (() => {
+  const routes = new Map<string, Pass[]>();
+  for (const [pass, kinds] of Object.entries(PASS_KINDS) as [Pass, readonly string[]][]) {
+    for (const kind of kinds) routes.set(kind, [...(routes.get(kind) ?? []), pass]);
+  }
+  return routes;
+})();
+
+/** Each pass's events, in timeline order. */
+function route(timeline: TimelineEvent[]): Record<Pass, TimelineEvent[]> {
+  const out = Object.fromEntries(Object.keys(PASS_KINDS).map((p) => [p, []])) as unknown as Record<Pass, TimelineEvent[]>;
+  for (const e of timeline) {
+    const passes = ROUTES.get(e.kind);
+    if (passes) for (const p of passes) out[p].push(e);
+  }
+  return out;
+}
+
+/**
  * A case's record from its event log (PRODUCT.md, The record): pure and deterministic, the same on the
  * tablet and the server. The log may come in any order and with repeats; bad events are reported in
  * `problems`, never thrown. One sort, then linear passes.
@@ -35,19 +72,20 @@ export function buildRecord(events: readonly RecordEventInput[] | unknown, optio
   const idleGapMs = typeof options.idleGapMs === 'number' && options.idleGapMs >= 0 ? options.idleGapMs : DEFAULT_IDLE_GAP_MS;
   try {
     const { timeline, voided, amendmentsApplied } = effectiveTimeline(events, problems);
-    const scopes = scopeIntervals(timeline);
-    const phaseList = phases(timeline, scopes);
-    const bleeds = bleedEpisodes(timeline, scopes, problems);
-    const devices = deviceTallies(timeline);
-    const timeOut = checkRecord(timeline, 'time_out');
-    const specimenList = specimens(timeline);
+    const by = route(timeline);
+    const scopes = scopeIntervals(by.scopes);
+    const phaseList = phases(by.phases, scopes);
+    const bleeds = bleedEpisodes(by.bleeds, scopes, problems);
+    const devices = deviceTallies(by.devices);
+    const timeOut = checkRecord(by.timeOut, 'time_out');
+    const specimenList = specimens(by.specimens);
     const specimen = specimenSummary(specimenList, phaseList);
     return {
       timeline, voided, amendmentsApplied, scopeIntervals: scopes, phases: phaseList,
       totalMinutes: phaseList.find((p) => p.name === 'total')?.minutes ?? null,
-      idleGaps: idleGaps(timeline, idleGapMs), bleeds, devices, counts: counts(timeline, bleeds),
-      resection: resectionOutcome(timeline), timeOut, signOut: checkRecord(timeline, 'sign_out'),
-      specimens: specimenList, specimen, notes: computedNotes(timeline, specimenList, specimen),
+      idleGaps: idleGaps(timeline, idleGapMs), bleeds, devices, counts: counts(by.counts, bleeds),
+      resection: resectionOutcome(by.resection), timeOut, signOut: checkRecord(by.signOut, 'sign_out'),
+      specimens: specimenList, specimen, notes: computedNotes(by.notes, specimenList, specimen),
       flags: recordFlags(bleeds, devices, timeOut, scopes), problems: problems.sort(problemOrder),
     };
   } catch (error) {

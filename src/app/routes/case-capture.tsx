@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { useParams, type LoaderFunctionArgs } from 'react-router';
-import { captureCaseQueryOptions, useCaptureCase } from '@/features/capture/api/get-case.ts';
+import { caseQueryOptions, useCase } from '@/features/cases/api/get-case.ts';
 import { CaptureScreen } from '@/features/capture/components/capture-screen.tsx';
 import { tabletEngine } from '@/features/capture/sync-engine.ts';
 import { useCatalogue } from '@/features/catalogue/api/catalogue.ts';
@@ -19,14 +19,14 @@ export const handle: RouteHandle = { themeScope: 'capture' };
 
 export async function loader(args: LoaderFunctionArgs) {
   await requireCan(args, 'event.record');
-  if (args.params.id) void queryClient.prefetchQuery(captureCaseQueryOptions(args.params.id));
+  if (args.params.id) void queryClient.prefetchQuery(caseQueryOptions(args.params.id));
   return null;
 }
 
 export function Component() {
   const { id = '' } = useParams();
   const me = useMe();
-  const summary = useCaptureCase(id).data ?? null;
+  const summary = useCase(id).data ?? null;
   // The devices feature's scan field as the sheet's item control, one component identity per case.
   const ItemInput = useMemo(() => captureItemControl(id), [id]);
   const catalogue = useCatalogue().data;
