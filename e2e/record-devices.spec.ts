@@ -52,6 +52,12 @@ test('a scanned clip, a misfire, a loop and a bleed reach the record page and th
   await expect(page.getByTestId('count-clips-misfired')).toHaveText('1');
   await expect(page.getByTestId('count-loops')).toHaveText('1');
   await expect(page.getByTestId('device-lots')).toContainText(`${lot} (2039-12-31)`);
+  // The label was read in the sheet of the first "Clip deployed" tap, so its row names that tap.
+  const labels = page.getByRole('table', { name: 'Device labels read' });
+  const labelRow = labels.getByRole('row').filter({ hasText: lot });
+  await expect(labelRow).toHaveCount(1);
+  await expect(labelRow.getByRole('cell').last()).toHaveText('Clip deployed');
+  await expect(labels).not.toContainText('not linked to a tap');
   const bleeds = page.getByRole('region', { name: 'Bleed episodes' });
   await expect(bleeds.getByRole('row')).toHaveCount(2);
   await expect(bleeds.getByTestId('bleed-time')).not.toHaveText('—');

@@ -2,13 +2,17 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { CaptureScreen } from '@/features/capture/components/capture-screen.tsx';
+import type { ItemControl } from '@/features/capture/components/detail-fields.tsx';
 import { ToastProvider } from '@/components/ui/toast.tsx';
 import { SyncProvider } from '@/sync/react.ts';
 import type { SyncEngine } from '@/sync/index.ts';
 import { buildCase } from './shell-factories.ts';
 
-/** The capture screen of `caseId` on one "tablet" (a real sync engine over fake IndexedDB). */
-export function renderCapture(engine: SyncEngine, caseId: string) {
+/**
+ * The capture screen of `caseId` on one "tablet" (a real sync engine over fake IndexedDB), with the
+ * route's item control when one is given.
+ */
+export function renderCapture(engine: SyncEngine, caseId: string, ItemInput?: ItemControl) {
   const summary = buildCase({ id: caseId, status: 'recording' });
   // The unit's member list is answered from here: the test has no HTTP server.
   const queries = new QueryClient({ defaultOptions: { queries: { retry: false } } });
@@ -21,7 +25,7 @@ export function renderCapture(engine: SyncEngine, caseId: string) {
       <MemoryRouter initialEntries={[`/cases/${caseId}/capture`]}>
         <ToastProvider>
           <SyncProvider engine={engine}>
-            <CaptureScreen caseId={caseId} summary={summary} />
+            <CaptureScreen caseId={caseId} summary={summary} ItemInput={ItemInput} />
           </SyncProvider>
         </ToastProvider>
       </MemoryRouter>

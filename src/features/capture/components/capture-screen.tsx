@@ -8,6 +8,7 @@ import { useRecordTap, useSyncEngine, useSyncStatus } from '@/sync/react.ts';
 import { useCaptureMembers } from '../api/get-members.ts';
 import { useCaptureModel, useStable } from '../hooks/use-capture-model.ts';
 import { useCaseSnapshot } from '../hooks/use-case-snapshot.ts';
+import { useEventId } from '../hooks/use-event-id.ts';
 import { useKeptPairs } from '../hooks/use-kept-pairs.ts';
 import { useWakeLock } from '../hooks/use-wake-lock.ts';
 import { haptic, vibrate } from '../hooks/haptics.ts';
@@ -170,6 +171,8 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
     if (p?.mode === 'after-tap') afterTapAmend(p, fields);
   }, [afterTapAmend]);
   const moreAfterTap = useCallback(() => setPanel((p) => (p?.mode === 'after-tap' ? { ...p, full: true } : p)), []);
+  // The tapped event's id, for the full sheet's scan field to link a label to it (the strip has no scan field).
+  const afterTapId = useEventId(panel?.mode === 'after-tap' && panel.full ? panel.event : undefined);
   const pairs = useMemo(() => snapshot.nearDuplicates.filter((p) => !kept.has(p.key)), [snapshot.nearDuplicates, kept]);
 
   return (
@@ -194,7 +197,7 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
               <QuickStrip key={`strip-${panel.target.key}`} target={panel.target} onClose={closePanel} onMore={moreAfterTap} onPick={pickAfterTap} />
             )}
             {panel?.mode === 'after-tap' && panel.full && (
-              <DetailPanel key={`sheet-${panel.target.key}`} mode="after-tap" target={panel.target} ItemInput={ItemInput} onClose={closePanel} className="flex-1"
+              <DetailPanel key={`sheet-${panel.target.key}`} mode="after-tap" target={panel.target} ItemInput={ItemInput} eventId={afterTapId} onClose={closePanel} className="flex-1"
                 onAmend={(fields) => afterTapAmend(panel, fields)} onCreate={() => undefined} onVoid={() => undefined} />
             )}
             {panel?.mode === 'create' && (
@@ -202,7 +205,7 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
                 onCreate={(payload) => void record(panel.target.kind, payload as never).catch(() => undefined)} onAmend={() => undefined} onVoid={() => undefined} />
             )}
             {editRow && (
-              <DetailPanel key={`edit-${editRow.id}`} mode="edit" ItemInput={ItemInput} onClose={closePanel} className="flex-1"
+              <DetailPanel key={`edit-${editRow.id}`} mode="edit" ItemInput={ItemInput} eventId={editRow.id} onClose={closePanel} className="flex-1"
                 target={{ key: editRow.id, kind: editRow.kind, label: editRow.label, timeMs: editRow.timeMs, payload: editRow.payload, voided: editRow.voided }}
                 onAmend={(fields) => amend(editRow.id, fields)} onVoid={(reason) => voidEvent(editRow.id, reason)} onCreate={() => undefined} />
             )}

@@ -5,8 +5,11 @@ import type { DetailField } from '../details.ts';
 
 export type Values = Record<string, unknown>;
 
-/** A catalogue-item control (a scan field); the capture screen hands in the devices feature's one. */
-export type ItemControl = ComponentType<{ value: string; onChange: (itemId: string) => void; label: string }>;
+/**
+ * A catalogue-item control (a scan field); the capture screen hands in the devices feature's one.
+ * `eventId` is the event being detailed, once its id is known, so that a scanned label is linked to it.
+ */
+export type ItemControl = ComponentType<{ value: string; onChange: (itemId: string) => void; label: string; eventId?: string }>;
 
 const chip = (on: boolean) => cn(
   'min-h-touch rounded-control border-2 px-3 text-base font-bold',
@@ -14,7 +17,7 @@ const chip = (on: boolean) => cn(
 );
 
 /** One detail field as big chips, a stepper or a text box. A second tap on a chosen chip clears it. */
-export function DetailInput({ field, value, onChange, ItemInput }: { field: DetailField; value: unknown; onChange: (v: unknown) => void; ItemInput?: ItemControl }) {
+export function DetailInput({ field, value, onChange, ItemInput, eventId }: { field: DetailField; value: unknown; onChange: (v: unknown) => void; ItemInput?: ItemControl; eventId?: string }) {
   const id = useId();
   const label = <span id={id} className="text-sm font-bold text-muted">{field.label}</span>;
   switch (field.type) {
@@ -95,7 +98,7 @@ export function DetailInput({ field, value, onChange, ItemInput }: { field: Deta
     }
     case 'item': {
       const s = typeof value === 'string' ? value : '';
-      if (ItemInput) return <ItemInput value={s} onChange={(v) => onChange(v || undefined)} label={field.label} />;
+      if (ItemInput) return <ItemInput value={s} onChange={(v) => onChange(v || undefined)} label={field.label} eventId={eventId} />;
       return (
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-i`} className="text-sm font-bold text-muted">{field.label}</label>

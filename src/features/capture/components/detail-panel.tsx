@@ -27,6 +27,8 @@ type Props = {
   onVoid: (reason: string) => void;
   onClose: () => void;
   ItemInput?: ItemControl;
+  /** The id of the event being detailed, once known (none while creating): a scanned label is linked to it. */
+  eventId?: string;
   className?: string;
 };
 
@@ -39,7 +41,7 @@ const voidReasons = ['Tapped by mistake', 'Recorded twice', 'Wrong button', 'Did
  * the log stays append-only everywhere, an event in flight is never rewritten under the engine, and the
  * record shows when the detail was added).
  */
-export function DetailPanel({ target, mode, onAmend, onCreate, onVoid, onClose, ItemInput, className }: Props) {
+export function DetailPanel({ target, mode, onAmend, onCreate, onVoid, onClose, ItemInput, eventId, className }: Props) {
   const fields = detailFields[target.kind] ?? [];
   const [values, setValues] = useState<Values>(() => ({ ...target.payload }));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -74,7 +76,7 @@ export function DetailPanel({ target, mode, onAmend, onCreate, onVoid, onClose, 
       <div className="flex min-h-0 flex-col gap-3 overflow-y-auto overscroll-contain">
         {fields.map((f) => (
           <div key={f.name}>
-            <DetailInput field={f} value={values[f.name]} onChange={(v) => setValues((s) => ({ ...s, [f.name]: v }))} ItemInput={ItemInput} />
+            <DetailInput field={f} value={values[f.name]} onChange={(v) => setValues((s) => ({ ...s, [f.name]: v }))} ItemInput={ItemInput} eventId={eventId} />
             {errors[f.name] && <p role="alert" className="mt-1 font-bold text-danger">{errors[f.name]}</p>}
           </div>
         ))}

@@ -1,10 +1,10 @@
-import { useState, type ComponentType } from 'react';
+import { useEffect, useState, type ComponentType } from 'react';
 import { v7 as uuidv7 } from 'uuid';
 import type { CatalogueItem } from '#shared/schemas/catalogue.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Select } from '@/components/ui/field.tsx';
 import { useCatalogue } from '@/features/catalogue/api/catalogue.ts';
-import { queueUsage, type SendResult } from '../api/usage-outbox.ts';
+import { flushUsages, onUsageResult, queueUsage, type SendResult } from '../api/usage-outbox.ts';
 import { itemName as nameOf } from '../scan.ts';
 import { ScanField, type ConfirmedScan } from './scan-field.tsx';
 
@@ -17,7 +17,9 @@ export const itemName = (item: CatalogueItem | undefined, id: string) => (item ?
 /**
  * The devices feature's item control for the capture screen's detail sheet: the tap is already
  * recorded; a scan confirmed here is kept on the tablet and sent as a device usage (lot, expiry) for the
- * case, and names the item on the event through the sheet's own amendment.
+ * case, and names the item on the event through the sheet's own amendment. With `eventId` the usage is
+ * linked to that tap; while the tap is still on its way to the server the scan waits on the tablet (shown
+ * as waiting) and is sent again, so the tap itself never waits on the scan.
  */
 export function captureItemControl(caseId: string): ComponentType<ItemControlProps> {
   return function CaptureItemControl({ value, onChange, label, eventId }: ItemControlProps) {
@@ -25,14 +27,22 @@ export function captureItemControl(caseId: string): ComponentType<ItemControlPro
     const [open, setOpen] = useState(!value);
     const [result, setResult] = useState<SendResult | null>(null);
     const [busy, setBusy] = useState(false);
+    const [usageId, setUsageId] = useState<string | null>(null);
     const current = catalogue.find((c) => c.id === value);
+
+    // A later try of this control's last scan (the tap reached the server) updates what it says.
+    useEffect(() => (usageId ? onUsageResult((id, r) => { if (id === usageId) { setResult(r); if (r.status === 'refused') setOpen(true); } }) : undefined), [usageId]);
+    // Scans left waiting by an earlier screen or session go out while the recorder is open.
+    useEffect(() => void flushUsages(true), []);
 
     const confirm = async (scan: ConfirmedScan) => {
       // The item goes to the sheet at once (its "Save details" may come before the server answers); the label follows.
       if (scan.item) onChange(scan.item.id);
       setOpen(false);
       setBusy(true);
-      const sent = await queueUsage(caseId, { id: uuidv7(), eventId: eventId ?? null, itemId: scan.item?.id ?? null, rawScan: scan.raw }).finally(() => setBusy(false));
+      const id = uuidv7();
+      setUsageId(id);
+      const sent = await queueUsage(caseId, { id, eventId: eventId ?? null, itemId: scan.item?.id ?? null, rawScan: scan.raw }).finally(() => setBusy(false));
       setResult(sent);
       if (sent.status === 'refused') setOpen(true);
     };
@@ -41,7 +51,7 @@ export function captureItemControl(caseId: string): ComponentType<ItemControlPro
       <div className="flex flex-col gap-2" role="group" aria-label={label}>
         {value && <p className="text-lg font-bold" data-testid="chosen-item"><span className="text-sm text-muted">Item: </span>{itemName(current, value)}</p>}
         {result?.status === 'stored' && <p role="status" className="font-bold text-ok">Label recorded{result.usage.lot ? `: lot ${result.usage.lot}` : ''}.</p>}
-        {result?.status === 'waiting' && <p role="status" className="font-bold text-caution">Label kept on this tablet; it is sent when the server can take it.</p>}
+        {result?.status === 'waiting' && <p role="status" className="font-bold text-caution">Label kept on this tablet{eventId ? ' for this tap' : ''}; it is sent when the server can take it.</p>}
         {result?.status === 'refused' && <p role="alert" className="font-bold text-danger">The server refused the label: {result.reason}</p>}
         {open ? (
           <>
