@@ -3,13 +3,14 @@
 // piece started here is stopped by `stop()`, in reverse order; what was already running is left alone.
 import { spawn, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { mkdirSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { ensurePostgres, recreateDatabase } from '../lib/postgres.mjs';
 import { dataDirs, serverEnv, testPorts } from '../lib/ports.mjs';
 import { startMailFake } from '../fakes/mail.mjs';
 import { startS3Fake } from '../fakes/s3.mjs';
+import { buildClient } from '../lib/setup.mjs';
 
 export const BENCH_DATABASE = 'ledgerline_bench';
 
@@ -62,11 +63,9 @@ export async function startStack({ root, log = console.log, env: extraEnv = {}, 
     if (pg.startedHere) stops.push(() => pg.stop());
     await recreateDatabase({ port: testPorts.pg, database: BENCH_DATABASE });
 
-    if (!existsSync(join(root, 'dist', 'index.html'))) {
-      log('Building the client (vite build)…');
-      const r = spawnSync(process.execPath, [join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build'], { cwd: root, stdio: ['ignore', 'ignore', 'pipe'], encoding: 'utf8' });
-      if (r.status !== 0) throw new Error(`vite build failed:\n${r.stderr}`);
-    }
+    // The same stamped build as `npm start`: rebuilt whenever the client's sources changed, so the bench
+    // never measures a stale bundle.
+    await buildClient({ root, stampFile: dirs.buildStamp, log });
 
     const ports = { ...testPorts, app: port ?? await freePort(), smtp: await freePort(), mailWeb: await freePort(), s3: await freePort() };
     const mailDir = join(dirs.data, 'bench-mail');

@@ -11,7 +11,7 @@ import {
   type CaseJoinAck, type ClockPong, type EventsPushAck, type OkAck,
 } from '#shared/contracts/sync.ts';
 import { handle, SyncRefusal, syncError } from './guard.ts';
-import { currentUser } from './session.ts';
+import { currentUser, type SocketData } from './session.ts';
 
 export type HandlerDeps = { db: Db; auth: Auth; logger: Logger };
 
@@ -43,13 +43,15 @@ export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDe
   }, small);
 
   handle(socket, SyncMessages.eventsPush, eventsPushSchema, async ({ caseId, events }): Promise<EventsPushAck> => {
-    const userId = await currentUser(auth, socket);
-    const access = await caseAccess(db, userId, caseId);
+    // The session check and the case access are read at once; the access is used only if the session
+    // still belongs to the socket's user (currentUser throws otherwise).
+    const [, access] = await Promise.all([currentUser(auth, socket), caseAccess(db, (socket.data as SocketData).userId, caseId)]);
     if (isDenied(access)) throw refusal(access);
     const denial = recordDenial(access);
     if (denial) throw refusal(denial);
     const { results, stored } = await recordEvents(db, { caseId, unitId: access.unitId }, events);
-    announceRecorded(db, caseId, stored); // committed: the room hears of it before the sender's ack
+    // Committed: the rest of the room hears of it; the sender has it in this ack and is left out.
+    announceRecorded(db, caseId, stored, { socketId: socket.id });
     return { results };
   }, { maxBytes: MAX_PUSH_BYTES, logger });
 

@@ -46,9 +46,11 @@ export async function createRealtime(httpServer: HttpServer, { db, auth, config,
   io.use(requireSession(auth));
   io.on('connection', (socket) => registerHandlers(socket, { db, auth, logger: log }));
 
-  const stopListening = onRecorded(db, (caseId, events) => {
+  const stopListening = onRecorded(db, (caseId, events, origin) => {
+    // The pushing socket is left out (on every node: its id is a room of its own): its ack carries the results.
+    const room = origin ? io.to(caseRoom(caseId)).except(origin.socketId) : io.to(caseRoom(caseId));
     for (let i = 0; i < events.length; i += BROADCAST_CHUNK) {
-      io.to(caseRoom(caseId)).emit(SyncMessages.eventsRecorded, { caseId, events: events.slice(i, i + BROADCAST_CHUNK) });
+      room.emit(SyncMessages.eventsRecorded, { caseId, events: events.slice(i, i + BROADCAST_CHUNK) });
     }
   });
 

@@ -1,6 +1,6 @@
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { NewEvent, StoredEvent } from '#shared/schemas/events.ts';
-import { findNearDuplicates, type NearDuplicatePair } from '#shared/domain/near-duplicates.ts';
+import { NearDuplicateIndex, type NearDuplicatePair } from '#shared/domain/near-duplicates.ts';
 import type { TapState } from './outbox.ts';
 
 /** One line of a case's timeline as the tablet holds it: accepted, or still on its way. */
@@ -41,6 +41,9 @@ export class CaseState {
   loaded = false;
   error: string | null = null;
   refs = 0;
+  /** The accepted events as timeline lines, by sequence: kept in order as events arrive, never re-sorted. */
+  readonly accepted: TimelineItem[] = [];
+  readonly nearDuplicates = new NearDuplicateIndex();
   private seqs = new Set<number>();
   private maxHeld = 0;
 
@@ -58,9 +61,20 @@ export class CaseState {
       if (e.kind === 'sign_out') this.status = 'closed';
       else if (this.status === 'scheduled') this.status = 'recording';
       added.push(e);
+      this.insertAccepted({ id: e.id, event: e, state: 'accepted', seq: e.seq, receivedAt: e.receivedAt, reason: null });
     }
     while (this.seqs.has(this.contiguousSeq + 1)) this.contiguousSeq++;
     return added;
+  }
+
+  private insertAccepted(item: TimelineItem): void {
+    const list = this.accepted;
+    const seq = item.seq!;
+    // Mostly the next sequence, appended; an event that arrived out of order goes in its place.
+    let i = list.length;
+    while (i > 0 && list[i - 1]!.seq! > seq) i--;
+    if (i === list.length) list.push(item);
+    else list.splice(i, 0, item);
   }
 
   /** True when a sequence above the contiguous run is held (something in between was missed). */
@@ -69,13 +83,12 @@ export class CaseState {
   }
 }
 
+/** The snapshot of a case: O(n) copying and lookups, no sorting (the accepted lines are kept in order). */
 export function buildCaseSnapshot(c: CaseState, pending: readonly TimelineItem[]): CaseSnapshot {
-  const accepted: TimelineItem[] = [...c.stored.values()]
-    .sort((a, b) => a.seq - b.seq)
-    .map((e) => ({ id: e.id, event: e, state: 'accepted', seq: e.seq, receivedAt: e.receivedAt, reason: null }));
   const mine = pending.filter((p) => !c.stored.has(p.id));
-  const items = [...accepted, ...mine];
-  const live = items.filter((i) => i.state !== 'refused').map((i) => i.event);
+  const items = mine.length ? c.accepted.concat(mine) : c.accepted.slice();
+  const live: NewEvent[] = [];
+  for (const i of items) if (i.state !== 'refused') live.push(i.event);
   return {
     caseId: c.caseId,
     items,
@@ -83,6 +96,6 @@ export function buildCaseSnapshot(c: CaseState, pending: readonly TimelineItem[]
     status: c.status,
     loaded: c.loaded,
     error: c.error,
-    nearDuplicates: findNearDuplicates(live),
+    nearDuplicates: c.nearDuplicates.update(live),
   };
 }

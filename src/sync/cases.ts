@@ -121,9 +121,15 @@ export class CaseRegistry {
   }
 
   private pendingOf(caseId: string): TimelineItem[] {
-    return [...this.d.entries.values()]
-      .filter((p) => p.event.caseId === caseId)
-      .sort((a, b) => (a.event.id < b.event.id ? -1 : 1))
-      .map((p) => ({ id: p.event.id, event: p.event, state: p.live, seq: null, receivedAt: null, reason: p.reason }));
+    const mine: Pending[] = [];
+    let sorted = true;
+    // The outbox map holds its entries in the order they were made (UUIDv7 ids): sorted only when not.
+    for (const p of this.d.entries.values()) {
+      if (p.event.caseId !== caseId) continue;
+      if (mine.length && mine[mine.length - 1]!.event.id > p.event.id) sorted = false;
+      mine.push(p);
+    }
+    if (!sorted) mine.sort((a, b) => (a.event.id < b.event.id ? -1 : 1));
+    return mine.map((p) => ({ id: p.event.id, event: p.event, state: p.live, seq: null, receivedAt: null, reason: p.reason }));
   }
 }

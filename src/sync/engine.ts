@@ -147,21 +147,24 @@ export class SyncEngine {
     return this.enqueue(event, discardOf).then(() => event as NewEventOf<K>);
   }
 
-  private async enqueue(event: NewEvent, discardOf: string | null = null): Promise<void> {
+  private enqueue(event: NewEvent, discardOf: string | null = null): Promise<void> {
     const entry = newOutboxEntry(event, discardOf);
+    // The write is started first (synchronously, when the database is open), then the tap is shown: the
+    // disk works while the screen draws the tap.
+    const written = this.storage.putOutbox(entry);
     this.entries.set(event.id, { ...entry, live: 'saving' });
     this.changed(event.caseId);
-    try {
-      this.lastWrite = await this.storage.putOutbox(entry);
-    } catch (err) {
+    return written.then((receipt) => {
+      this.lastWrite = receipt;
+      const p = this.entries.get(event.id);
+      if (p?.live === 'saving') p.live = 'queued';
+      this.changed(event.caseId);
+      void this.pusher.pump(); // only now: nothing is sent before its IndexedDB write committed
+    }, (err: unknown) => {
       this.entries.delete(event.id);
       this.changed(event.caseId);
       throw err;
-    }
-    const p = this.entries.get(event.id);
-    if (p?.live === 'saving') p.live = 'queued';
-    this.changed(event.caseId);
-    void this.pusher.pump();
+    });
   }
 
   /**

@@ -97,7 +97,8 @@ describe('the capture screen', () => {
     const [clip, amend] = server.log(caseId);
     expect(amend!.payload).toEqual({ targetId: clip!.id, fields: { purpose: 'closure', itemId: 'clip-11' } });
     await waitFor(() => expect(screen.queryByTestId('detail-panel')).toBeNull());
-    expect(within(screen.getByTestId('recent-events')).getAllByRole('listitem')[0]).toHaveTextContent('Closure · clip-11 (edited)');
+    // The amendment is recorded once the tap's own write has resolved, so the row may show it a redraw later.
+    await waitFor(() => expect(within(screen.getByTestId('recent-events')).getAllByRole('listitem')[0]).toHaveTextContent('Closure · clip-11 (edited)'));
   });
 
   it('refuses a detail the event cannot hold, naming the field, and records nothing', async () => {

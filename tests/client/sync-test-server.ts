@@ -54,7 +54,8 @@ export async function startTestSyncServer(options: TestServerOptions = {}) {
       const m = eventsPushSchema.parse(msg);
       pushes.push(m.events.map((e) => (e as NewEvent).id));
       const { results, added } = store(m.caseId, m.events);
-      if (added.length) io.to(caseRoom(m.caseId)).emit(SyncMessages.eventsRecorded, { caseId: m.caseId, events: added });
+      // As the real server: the rest of the room hears of it, the sender has its ack.
+      if (added.length) socket.to(caseRoom(m.caseId)).emit(SyncMessages.eventsRecorded, { caseId: m.caseId, events: added });
       if (state.dropAcks > 0) { state.dropAcks--; return; }
       ack({ results });
     });

@@ -23,17 +23,20 @@ afterAll(async () => {
 const eventually = <T>(check: () => T) => vi.waitFor(check, { timeout: 5_000, interval: 20 });
 
 describe('case rooms', () => {
-  it('tells the other tablets in the case what was stored, after commit, and no one outside the room', async () => {
+  it('tells the other tablets in the case what was stored, after commit, and neither the sender nor anyone outside the room', async () => {
     const caseId = await newCase(t, team);
     const elsewhere = await newCase(t, team);
     const [a, b, c] = await Promise.all([tablet(nodeA, team.cookies.nurse), tablet(nodeA, team.cookies.endoscopist), tablet(nodeA, team.cookies.supervisor)]);
     await Promise.all([join(a, caseId), join(b, caseId), join(c, elsewhere)]);
+    const seenByA = recordedBy(a);
     const seenByB = recordedBy(b);
     const seenByC = recordedBy(c);
     const e = tap('bleed', caseId, team.members.nurse.id, { payload: { severity: 'spurting', vesselMm: 1 } });
     await push(a, caseId, [e]);
     await eventually(() => expect(seenByB).toEqual([{ caseId, events: [expect.objectContaining({ id: e.id, seq: 1, payload: { severity: 'spurting', vesselMm: 1 } })] }]));
     expect(seenByC).toEqual([]);
+    // The sender has the results in its ack: the broadcast leaves it out.
+    expect(seenByA).toEqual([]);
   });
 
   it('lets a tablet on node A see an event pushed on node B (Postgres adapter)', async () => {

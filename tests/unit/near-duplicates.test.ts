@@ -1,6 +1,7 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { findNearDuplicates, nearDuplicateKey, NEAR_DUPLICATE_WINDOW_MS } from '#shared/domain/near-duplicates.ts';
-import { at, buildEvent } from '../factories/events.ts';
+import { findNearDuplicates, NearDuplicateIndex, nearDuplicateKey, NEAR_DUPLICATE_WINDOW_MS } from '#shared/domain/near-duplicates.ts';
+import { at, buildEvent, type NewEvent } from '../factories/events.ts';
 
 const caseId = '0195a1b2-0000-7000-8000-000000000001';
 const clip = (device: string, ms: number, offsetMs = 0) =>
@@ -64,5 +65,42 @@ describe('near-duplicate taps', () => {
     const v1 = buildEvent('amend', { caseId, device: 'tablet-a', deviceTime: at(100), payload: { targetId: target.id, fields: { purpose: 'closure' } } });
     const v2 = buildEvent('amend', { caseId, device: 'tablet-b', deviceTime: at(200), payload: { targetId: target.id, fields: { purpose: 'closure' } } });
     expect(findNearDuplicates([target, v1, v2])).toEqual([]);
+  });
+});
+
+describe('near-duplicate taps kept up to date as the log grows', () => {
+  const step = fc.record({
+    kind: fc.constantFrom('clip', 'bleed', 'void'),
+    device: fc.constantFrom('tablet-a', 'tablet-b', 'tablet-c'),
+    ms: fc.integer({ min: 0, max: 30_000 }),
+    voids: fc.nat(),
+  });
+
+  it('gives the same pairs, in the same order, as computing them from scratch after every tap, void or lost event', () => {
+    fc.assert(fc.property(fc.array(step, { maxLength: 40 }), fc.array(fc.nat(), { maxLength: 3 }), (steps, losses) => {
+      const index = new NearDuplicateIndex();
+      let log: NewEvent[] = [];
+      for (const [k, s] of steps.entries()) {
+        const taps = log.filter((e) => e.kind !== 'void');
+        if (s.kind === 'void' && taps.length) {
+          log = [...log, buildEvent('void', { caseId, device: s.device, deviceTime: at(s.ms), payload: { targetId: taps[s.voids % taps.length]!.id, reason: 'same clip' } })];
+        } else if (s.kind === 'bleed') {
+          log = [...log, buildEvent('bleed', { caseId, device: s.device, deviceTime: at(s.ms) })];
+        } else {
+          log = [...log, clip(s.device, s.ms)];
+        }
+        // Now and then an event leaves the log (refused by the server).
+        if (losses.includes(k) && log.length > 1) log = log.filter((_, i) => i !== k % log.length);
+        expect(index.update(log)).toEqual(findNearDuplicates(log));
+      }
+    }), { numRuns: 200 });
+  });
+
+  it('keeps the same array while nothing changed, so the screen need not redraw the pairs', () => {
+    const log = [clip('tablet-a', 0), clip('tablet-b', 1_000)];
+    const index = new NearDuplicateIndex();
+    const first = index.update(log);
+    expect(first).toHaveLength(1);
+    expect(index.update([...log])).toBe(first);
   });
 });

@@ -7,7 +7,10 @@ import type { StoredEvent } from '#shared/schemas/events.ts';
  * transaction. Listeners are kept per database handle, which is per server node: two nodes in one
  * process (the tests) do not hear each other here, only through the Socket.IO Postgres adapter.
  */
-export type RecordedListener = (caseId: string, events: StoredEvent[]) => void;
+export type RecordedListener = (caseId: string, events: StoredEvent[], origin?: RecordedOrigin) => void;
+
+/** Who pushed: a socket already has the results in its ack, so the broadcast leaves it out. */
+export type RecordedOrigin = { socketId: string };
 
 const listeners = new WeakMap<object, Set<RecordedListener>>();
 
@@ -18,7 +21,7 @@ export function onRecorded(db: object, listener: RecordedListener): () => void {
   return () => { set.delete(listener); };
 }
 
-export function announceRecorded(db: object, caseId: string, events: StoredEvent[]): void {
+export function announceRecorded(db: object, caseId: string, events: StoredEvent[], origin?: RecordedOrigin): void {
   if (!events.length) return;
-  for (const l of listeners.get(db) ?? []) l(caseId, events);
+  for (const l of listeners.get(db) ?? []) l(caseId, events, origin);
 }

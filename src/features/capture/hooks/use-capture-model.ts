@@ -1,6 +1,6 @@
 import { useMemo, useRef } from 'react';
 import { buildRecord, toRecordInput } from '#shared/domain/record/index.ts';
-import type { CaseRecord } from '#shared/domain/record/types.ts';
+import type { CaseRecord, RecordEventInput } from '#shared/domain/record/types.ts';
 import type { NewEvent } from '#shared/schemas/events.ts';
 import type { CaseSnapshot, TapState } from '@/sync/index.ts';
 import { clockView, sameClock, type ClockView } from '../components/case-clock.tsx';
@@ -26,7 +26,20 @@ export function useStable<T>(value: T, same: (a: T, b: T) => boolean): T {
   return ref.current;
 }
 
-const sameEvents = (a: readonly NewEvent[], b: readonly NewEvent[]) => a.length === b.length && a.every((e, i) => e === b[i]);
+/** The reducer's input by event object: an event is immutable, and its corrected time is parsed once. */
+const inputs = new WeakMap<NewEvent, RecordEventInput>();
+function recordInput(e: NewEvent): RecordEventInput {
+  let r = inputs.get(e);
+  if (!r) { r = toRecordInput(e); inputs.set(e, r); }
+  return r;
+}
+
+/**
+ * The same events in the same order. An event keeps its id and content from the tap to the server's
+ * copy (which only adds seq and receivedAt, not read on this screen), so an acceptance does not
+ * rebuild the record, the counts or the rows.
+ */
+const sameEvents = (a: readonly NewEvent[], b: readonly NewEvent[]) => a.length === b.length && a.every((e, i) => e === b[i] || e.id === b[i]!.id);
 
 /**
  * Everything the capture screen shows, computed from the tablet's copy of the case. The record is
@@ -38,7 +51,7 @@ export function useCaptureModel(snapshot: CaseSnapshot, opts: { offsetMs: number
   const fresh = useMemo(() => items.filter((i) => i.state !== 'refused').map((i) => i.event), [items]);
   const events = useStable<readonly NewEvent[]>(fresh, sameEvents);
   const shown = useStable<readonly NewEvent[]>(useMemo(() => items.map((i) => i.event), [items]), sameEvents);
-  const record = useMemo(() => buildRecord(events.map(toRecordInput)), [events]);
+  const record = useMemo(() => buildRecord(events.map(recordInput)), [events]);
   const counts = useStable(useMemo(() => toLiveCounts(record, opts.offsetMs), [record, opts.offsetMs]), sameCounts);
   const clock = useStable(useMemo(() => clockView(record), [record]), sameClock);
   const corrections = useMemo(() => collectCorrections(events), [events]);
