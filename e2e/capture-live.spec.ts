@@ -1,15 +1,22 @@
+import type { Page } from '@playwright/test';
 import { expect, login, test } from './fixtures.ts';
 import { count, openCapture, scheduleCase, serverEvents, tap } from './capture-helpers.ts';
 
 const sofia = 'sofia.marin@kestrelbay.example';
 const daniel = 'daniel.kaur@kestrelbay.example';
 
-test('two tablets on one case see each other\'s taps', async ({ page, secondTablet }) => {
+/** Sofia's tablet and Daniel's, both on the capture screen of a case scheduled for the test. */
+async function twoTabletsOnANewCase(page: Page, secondTablet: (email: string) => Promise<Page>) {
   await login(page, sofia);
   const caseId = await scheduleCase(page);
   await openCapture(page, caseId);
   const other = await secondTablet(daniel);
   await openCapture(other, caseId);
+  return { caseId, other };
+}
+
+test('two tablets on one case see each other\'s taps', async ({ page, secondTablet }) => {
+  const { other } = await twoTabletsOnANewCase(page, secondTablet);
 
   await tap(page, 'clip-deployed');
   await expect(count(other, 'clips-deployed')).toHaveText('1');
@@ -41,11 +48,7 @@ test('undo voids the last tap, and only that one', async ({ page }) => {
 });
 
 test('a second tablet\'s near-duplicate tap is shown for a person to resolve', async ({ page, secondTablet }) => {
-  await login(page, sofia);
-  const caseId = await scheduleCase(page);
-  await openCapture(page, caseId);
-  const other = await secondTablet(daniel);
-  await openCapture(other, caseId);
+  const { caseId, other } = await twoTabletsOnANewCase(page, secondTablet);
 
   await tap(page, 'clip-deployed');
   await tap(other, 'clip-deployed');
