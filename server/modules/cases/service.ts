@@ -1,6 +1,6 @@
 import type { Db } from '#server/db/client.ts';
 import type { Auditor } from '#server/http/audit.ts';
-import { badRequest, conflict, notFound, type Issue } from '#server/http/errors.ts';
+import { badRequest, conflict, type Issue } from '#server/http/errors.ts';
 import type { Actor } from '#server/http/session.ts';
 import type { CancelCaseInput, CaseDetail } from '#shared/schemas/api-cases.ts';
 import type { CaseStatus, CaseSummary, ScheduleCaseInput } from '#shared/schemas/cases.ts';
@@ -9,6 +9,7 @@ import { hasRole } from '../members/queries.ts';
 import { reuseOrCreatePatient } from '../patients/service.ts';
 import { findRoom } from '../rooms/queries.ts';
 import { toDetail, toSummary } from './mapping.ts';
+import { caseOfUnit } from './access.ts';
 import { cancelScheduledCase, findCaseRecord, insertCase, listCaseRecords } from './queries.ts';
 
 export async function listCases(db: Db, actor: Actor, q: { date?: string; roomId?: string; status?: CaseStatus }): Promise<CaseSummary[]> {
@@ -51,16 +52,14 @@ export async function scheduleCase(db: Db, actor: Actor, input: ScheduleCaseInpu
  * reveal nothing across units. Every read is written to the audit log (PRODUCT.md, Roles).
  */
 export async function getCase(db: Db, actor: Actor, caseId: string, audit: Auditor): Promise<CaseDetail> {
-  const row = await findCaseRecord(db, actor.unitId, caseId);
-  if (!row) throw notFound('No such case in your unit');
+  const row = await caseOfUnit(db, actor, caseId);
   await audit(db, { action: 'case.view', entityType: 'case', entityId: caseId, detail: { patientId: row.patientId } });
   return toDetail(row);
 }
 
 /** Cancel a case that has not begun; a case being recorded or done is never cancelled (409). */
 export async function cancelCase(db: Db, actor: Actor, caseId: string, input: CancelCaseInput, audit: Auditor): Promise<CaseDetail> {
-  const before = await findCaseRecord(db, actor.unitId, caseId);
-  if (!before) throw notFound('No such case in your unit');
+  const before = await caseOfUnit(db, actor, caseId);
   await db.transaction(async (tx) => {
     const done = await cancelScheduledCase(tx, actor.unitId, caseId, input.reason ?? null);
     if (!done) throw conflict(`Only a scheduled case can be cancelled; this one is ${before.status}`);

@@ -7,7 +7,7 @@ import { isExpired, parseIdentifier, type DeviceIdentifier } from '#shared/domai
 import { identifierSchemeSchema, type createDeviceUsageSchema, type DeviceUsage, type UsageWarning } from '#shared/schemas/device-usages.ts';
 import type { z } from 'zod';
 import { findItem, findItemByGtin, findItemByHibcc } from '../catalogue/queries.ts';
-import { caseOfUnit, openCaseOfUnit } from '../record/case-access.ts';
+import { caseOfUnit, openCaseOfUnit } from '../cases/access.ts';
 import { findCaseEvent, findUsage, insertUsage, listUsages } from './queries.ts';
 
 type CreateInput = z.output<typeof createDeviceUsageSchema>;

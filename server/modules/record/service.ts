@@ -4,7 +4,7 @@ import type { Actor } from '#server/http/session.ts';
 import type { RecordView } from '#shared/schemas/record.ts';
 import { listUsages } from '../device-usages/queries.ts';
 import { listSpecimens } from '../specimens/queries.ts';
-import { caseOfUnit } from './case-access.ts';
+import { caseOfUnit } from '../cases/access.ts';
 import { recordPdf } from './pdf.ts';
 import { catalogueById, namesOf, recordInputs } from './queries.ts';
 import { buildRecordView } from './view.ts';

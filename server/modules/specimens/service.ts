@@ -10,7 +10,7 @@ import {
 } from '#shared/schemas/specimens.ts';
 import type { z } from 'zod';
 import { specimenLabelPdf, barcodePng, type LabelSymbology } from '#server/services/labels.ts';
-import { caseOfUnit, openCaseOfUnit } from '../record/case-access.ts';
+import { caseOfUnit, openCaseOfUnit } from '../cases/access.ts';
 import { findSpecimen, insertSpecimen, listSpecimens, retrievedAt, updateSpecimen, type SpecimenValues } from './queries.ts';
 
 type CreateInput = z.output<typeof createSpecimenSchema>;

@@ -1,7 +1,7 @@
 import type { Tx } from '#server/db/client.ts';
 import { conflict, notFound } from '#server/http/errors.ts';
 import type { Actor } from '#server/http/session.ts';
-import { findCaseRecord } from '../cases/queries.ts';
+import { findCaseRecord } from './queries.ts';
 
 /** Statuses in which specimens and device usages may still be written (PRODUCT.md: until the record is closed). */
 const OPEN_STATUSES = new Set(['scheduled', 'recording']);
