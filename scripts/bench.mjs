@@ -13,6 +13,7 @@ import { measureFlush } from './bench/flush.mjs';
 import { measurePaired } from './bench/paired.mjs';
 import { startStack } from './bench/stack.mjs';
 import { summarize } from './bench/stats.mjs';
+import { ensureDebianPackages, TEST_PACKAGES } from './lib/setup.mjs';
 import { targets } from './bench/targets.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
@@ -42,6 +43,8 @@ try {
   const reducer = benchReducer();
   await unregister();
 
+  // Debian's Chromium, installed here as `npm test` does when this machine has none yet.
+  await ensureDebianPackages(TEST_PACKAGES.filter((p) => p.pkg === 'chromium'), { log });
   stack = await startStack({ root, log });
   browser = await launchBrowser();
 
