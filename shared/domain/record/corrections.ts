@@ -1,4 +1,4 @@
-import { isEventKind, validatePayload, type LogEntry } from './intake.ts';
+import { isEventKind, validatePayload, type Intake, type LogEntry } from './intake.ts';
 import type { Problem } from './types.ts';
 
 
@@ -9,11 +9,10 @@ import type { Problem } from './types.ts';
  * functional graph whose rings are found by one walk (the colouring of a depth-first search), and the
  * rest is a forest resolved leaves-first with an explicit stack.
  */
-function resolveVoids(sorted: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): void {
+function resolveVoids(voids: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): void {
   const targetOf = new Map<string, string>();
   const voidersOf = new Map<string, string[]>();
-  for (const e of sorted) {
-    if (e.kind !== 'void' || e.status !== 'ok') continue;
+  for (const e of voids) {
     const target = e.payload!.targetId as string;
     if (target === e.id) { problems.push({ code: 'self_target', eventId: e.id, message: `void ${e.id} names itself` }); continue; }
     if (!byId.has(target)) { problems.push({ code: 'unknown_target', eventId: e.id, message: `void ${e.id} names ${target}, which is not in this case's log` }); continue; }
@@ -78,10 +77,10 @@ function merge(current: unknown, fields: Record<string, unknown>): Record<string
  * make a refused event valid (a mistyped size corrected). Voided amendments, and amendments of voided
  * events, have no effect; voids and amendments themselves are not amendable.
  */
-function applyAmendments(sorted: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): number {
+function applyAmendments(amends: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): number {
   const amendsOf = new Map<string, LogEntry[]>();
-  for (const e of sorted) {
-    if (e.kind !== 'amend' || e.status !== 'ok' || e.voidedBy) continue;
+  for (const e of amends) {
+    if (e.voidedBy) continue;
     const targetId = e.payload!.targetId as string;
     const target = byId.get(targetId);
     if (targetId === e.id) { problems.push({ code: 'self_target', eventId: e.id, message: `amendment ${e.id} names itself` }); continue; }
@@ -125,10 +124,10 @@ function applyAmendments(sorted: LogEntry[], byId: Map<string, LogEntry>, proble
  * `payload`); reports every refused event that no void took away and no amendment mended. Returns the
  * number of amendments applied.
  */
-export function applyCorrections(sorted: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): number {
-  resolveVoids(sorted, byId, problems);
-  const applied = applyAmendments(sorted, byId, problems);
-  for (const e of sorted) {
+export function applyCorrections(log: Intake, problems: Problem[]): number {
+  resolveVoids(log.voids, log.byId, problems);
+  const applied = applyAmendments(log.amends, log.byId, problems);
+  for (const e of log.refused) {
     if (e.status === 'ok' || e.voidedBy) continue;
     problems.push({ code: e.status, eventId: e.id, message: `event ${e.id} (${e.kind.slice(0, 40)}) left out: ${e.issue}` });
   }

@@ -74,18 +74,29 @@ function preferred(a: LogEntry, b: LogEntry): LogEntry {
   return keyOf(a) <= keyOf(b) ? a : b;
 }
 
-export type Intake = { entries: LogEntry[]; byId: Map<string, LogEntry> };
+export type Intake = {
+  entries: LogEntry[];
+  byId: Map<string, LogEntry>;
+  /** The valid voids and amendments, in log order: the corrections read only these, not the whole log. */
+  voids: LogEntry[];
+  amends: LogEntry[];
+  /** The entries refused by the vocabulary (unknown kind, invalid payload), in log order. */
+  refused: LogEntry[];
+};
 
 /**
  * Reads the delivered events: each id once (at-least-once delivery repeats events; a repeat counts once),
- * each checked against the vocabulary. A repeat that differs in content is kept by a fixed rule and
- * reported, so the result does not depend on delivery order.
+ * each checked against the vocabulary. A repeat that differs in content
+ * is kept by a fixed rule and reported, so the result does not depend on delivery order. The few voids,
+ * amendments and refused entries are listed apart (in log order), so that no later step has to look
+ * through the whole log for them: on long logs each pass over every entry costs a cache miss per event.
  */
 export function intake(events: unknown, problems: Problem[]): Intake {
   const byId = new Map<string, LogEntry>();
+  const out: Intake = { entries: [], byId, voids: [], amends: [], refused: [] };
   if (!Array.isArray(events)) {
     problems.push({ code: 'malformed_event', eventId: null, message: 'the event log is not a list' });
-    return { entries: [], byId };
+    return out;
   }
   const conflicted = new Set<string>();
   for (const item of events) {
@@ -99,9 +110,24 @@ export function intake(events: unknown, problems: Problem[]): Intake {
   for (const id of conflicted) {
     problems.push({ code: 'duplicate_conflict', eventId: id, message: `event ${id} was delivered more than once with different content; the stored copy is used` });
   }
-  const entries = [...byId.values()];
-  for (const entry of entries) validate(entry);
-  return { entries, byId };
+  out.entries = [...byId.values()];
+  for (const entry of out.entries) {
+    validate(entry);
+    if (entry.status !== 'ok') out.refused.push(entry);
+    else if (entry.kind === 'void') out.voids.push(entry);
+    else if (entry.kind === 'amend') out.amends.push(entry);
+  }
+  for (const list of [out.voids, out.amends, out.refused]) list.sort(compareLog);
+  return out;
+}
+
+/** Log order: corrected time, then the server's sequence (events not yet stored after stored ones), then id. */
+export function compareLog(a: LogEntry, b: LogEntry): number {
+  if (a.atMs !== b.atMs) return a.atMs - b.atMs;
+  const sa = a.seq ?? Infinity;
+  const sb = b.seq ?? Infinity;
+  if (sa !== sb) return sa < sb ? -1 : 1;
+  return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
 }
 
 /**

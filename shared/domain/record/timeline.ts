@@ -1,15 +1,9 @@
 import { applyCorrections } from './corrections.ts';
-import { intake, type LogEntry } from './intake.ts';
+import { compareLog, intake, type LogEntry } from './intake.ts';
+import { sortByKey } from './sort.ts';
 import type { Problem, TimelineEvent, VoidedEvent } from './types.ts';
 
-/** Log order: corrected time, then the server's sequence (events not yet stored after stored ones), then id. */
-export function compareLog(a: LogEntry, b: LogEntry): number {
-  if (a.atMs !== b.atMs) return a.atMs - b.atMs;
-  const sa = a.seq ?? Infinity;
-  const sb = b.seq ?? Infinity;
-  if (sa !== sb) return sa < sb ? -1 : 1;
-  return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
-}
+const atMsOf = (e: LogEntry) => e.atMs;
 
 /** One shared, frozen empty list for the many events never amended (fewer allocations on long logs). */
 const NOT_AMENDED: readonly string[] = Object.freeze([]);
@@ -21,9 +15,9 @@ export type EffectiveTimeline = { timeline: TimelineEvent[]; voided: VoidedEvent
  * with voids and amendments applied. Corrections themselves are not on it; voided events are listed apart.
  */
 export function effectiveTimeline(events: unknown, problems: Problem[]): EffectiveTimeline {
-  const { entries, byId } = intake(events, problems);
-  const sorted = entries.sort(compareLog);
-  const amendmentsApplied = applyCorrections(sorted, byId, problems);
+  const log = intake(events, problems);
+  const sorted = sortByKey(log.entries, atMsOf, compareLog);
+  const amendmentsApplied = applyCorrections(log, problems);
   const timeline: TimelineEvent[] = [];
   const voided: VoidedEvent[] = [];
   for (const e of sorted) {
