@@ -26,7 +26,7 @@ export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDe
 
   // Join a case room, then read: an event committed in between arrives twice (the client keeps one), never zero times.
   handle(socket, SyncMessages.caseJoin, caseJoinSchema, async ({ caseId, afterSeq }): Promise<CaseJoinAck> => {
-    const userId = await currentUser(auth, socket);
+    const userId = await currentUser(auth, db, socket);
     const access = await caseAccess(db, userId, caseId);
     if (isDenied(access)) throw refusal(access);
     await socket.join(caseRoom(caseId));
@@ -43,13 +43,16 @@ export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDe
   }, small);
 
   handle(socket, SyncMessages.eventsPush, eventsPushSchema, async ({ caseId, events }): Promise<EventsPushAck> => {
-    // The session check and the case access are read at once; the access is used only if the session
-    // still belongs to the socket's user (currentUser throws otherwise).
-    const [, access] = await Promise.all([currentUser(auth, socket), caseAccess(db, (socket.data as SocketData).userId, caseId)]);
-    if (isDenied(access)) throw refusal(access);
-    const denial = recordDenial(access);
-    if (denial) throw refusal(denial);
-    const { results, stored } = await recordEvents(db, { caseId, unitId: access.unitId }, events);
+    // The session check and the case access go out at once (with recordEvents' own first read); the
+    // transaction begins once both passed, and a session that ended answers 'unauthorized' first.
+    const confirmed = currentUser(auth, db, socket);
+    const access = caseAccess(db, (socket.data as SocketData).userId, caseId).then((a) => {
+      if (isDenied(a)) throw refusal(a);
+      const denial = recordDenial(a);
+      if (denial) throw refusal(denial);
+      return a;
+    });
+    const { results, stored } = await recordEvents(db, { caseId, access, confirmed }, events);
     // Committed: the rest of the room hears of it; the sender has it in this ack and is left out.
     announceRecorded(db, caseId, stored, { socketId: socket.id });
     return { results };

@@ -1,18 +1,32 @@
 import type { Server as HttpServer } from 'node:http';
 import type { Logger } from 'pino';
 import { Server } from 'socket.io';
+import { z } from 'zod';
 import type { Auth } from '../auth.ts';
 import type { Config } from '../config.ts';
 import type { Db } from '../db/client.ts';
+import { rowToStored } from '../modules/events/intake.ts';
+import { eventsBetween } from '../modules/events/queries.ts';
 import { onRecorded } from '../modules/events/recorded.ts';
 import { caseRoom, MAX_PUSH_BYTES, SyncMessages, type ClientToServerEvents, type ServerToClientEvents } from '#shared/contracts/sync.ts';
+import type { StoredEvent } from '#shared/schemas/events.ts';
 import { attachPostgresAdapter } from './adapter.ts';
 import { registerHandlers } from './handlers.ts';
 import { requireSession, type SocketData } from './session.ts';
 
 export interface RealtimeDeps { db: Db; auth: Auth; config: Config; logger: Logger }
 
-export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+/**
+ * Between server nodes (through the adapter): "these sequences of this case were stored". Only the
+ * range travels (one small NOTIFY); a node with tablets in the case's room reads the rows, committed
+ * before the message left, and tells its own sockets.
+ */
+const RECORDED_ELSEWHERE = 'events.recorded.elsewhere';
+const recordedElsewhereSchema = z.object({ caseId: z.uuid(), fromSeq: z.int().positive(), toSeq: z.int().positive() });
+type RecordedElsewhere = z.infer<typeof recordedElsewhereSchema>;
+type InterServerEvents = { [RECORDED_ELSEWHERE]: (msg: RecordedElsewhere) => void };
+
+export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, InterServerEvents, SocketData>;
 
 export interface Realtime {
   io: RealtimeServer;
@@ -46,12 +60,34 @@ export async function createRealtime(httpServer: HttpServer, { db, auth, config,
   io.use(requireSession(auth));
   io.on('connection', (socket) => registerHandlers(socket, { db, auth, logger: log }));
 
-  const stopListening = onRecorded(db, (caseId, events, origin) => {
-    // The pushing socket is left out (on every node: its id is a room of its own): its ack carries the results.
-    const room = origin ? io.to(caseRoom(caseId)).except(origin.socketId) : io.to(caseRoom(caseId));
+  // A plain io.to(room).emit() with the adapter waits for its NOTIFY to PostgreSQL before it writes to
+  // this node's own sockets, and sends every event through PostgreSQL (a table row above 8,000 bytes),
+  // which each node, this one too, reads back and decodes. So the tablets on this node are told first,
+  // synchronously, and the other nodes get only the range of sequences (serverSideEmit reaches every
+  // node but this one).
+  const tellLocal = (caseId: string, events: StoredEvent[], except?: string) => {
+    // The adapter encodes a packet before it looks for sockets: with no one else in the room, none is made.
+    const here = io.of('/').adapter.rooms.get(caseRoom(caseId));
+    if (!here || here.size === 0 || (here.size === 1 && except && here.has(except))) return;
+    const room = except ? io.local.to(caseRoom(caseId)).except(except) : io.local.to(caseRoom(caseId));
     for (let i = 0; i < events.length; i += BROADCAST_CHUNK) {
       room.emit(SyncMessages.eventsRecorded, { caseId, events: events.slice(i, i + BROADCAST_CHUNK) });
     }
+  };
+  // The pushing socket is left out: its ack carries the results (and it is on this node).
+  const stopListening = onRecorded(db, (caseId, events, origin) => {
+    tellLocal(caseId, events, origin?.socketId);
+    io.serverSideEmit(RECORDED_ELSEWHERE, { caseId, fromSeq: events[0]!.seq, toSeq: events.at(-1)!.seq });
+  });
+  io.on(RECORDED_ELSEWHERE, (msg: unknown) => {
+    const parsed = recordedElsewhereSchema.safeParse(msg);
+    if (!parsed.success) { log.warn({ msg }, 'malformed message from another node'); return; }
+    const { caseId, fromSeq, toSeq } = parsed.data;
+    if (!io.of('/').adapter.rooms.get(caseRoom(caseId))?.size) return; // no tablet of this case here: nothing to read
+    eventsBetween(db, caseId, fromSeq, toSeq).then(
+      (rows) => tellLocal(caseId, rows.map(rowToStored)),
+      (err: unknown) => log.warn({ err, caseId }, 'events stored on another node could not be read'), // the tablets fill the gap at their next event or join
+    );
   });
 
   let closing: Promise<void> | null = null;

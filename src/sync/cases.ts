@@ -1,10 +1,25 @@
 import { caseJoinAckSchema, eventsRecordedSchema, isSyncError, okAckSchema, SyncMessages } from '#shared/contracts/sync.ts';
+import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { StoredEvent } from '#shared/schemas/events.ts';
 import { buildCaseSnapshot, CaseState, type CaseSnapshot, type TimelineItem } from './case-view.ts';
 import { createObservable, type Observable } from './observable.ts';
 import type { OutboxEntry, TapState } from './outbox.ts';
 import { request, type SyncSocket } from './socket-client.ts';
 import type { SyncStorage } from './storage.ts';
+
+/**
+ * The status a join answer gives is as of its lastSeq; an event held beyond it (a push's ack or a
+ * broadcast that overtook the answer) moves it on as CaseState.absorb does.
+ */
+function statusSince(status: CaseStatus, asOfSeq: number, held: Iterable<StoredEvent>): CaseStatus {
+  let now = status;
+  for (const e of held) {
+    if (e.seq <= asOfSeq) continue;
+    if (e.kind === 'sign_out') now = 'closed';
+    else if (now === 'scheduled') now = 'recording';
+  }
+  return now;
+}
 
 /** In memory, each outbox entry with its live state ('saving' and 'sent' are never stored). */
 export type Pending = OutboxEntry & { live: TapState };
@@ -86,7 +101,7 @@ export class CaseRegistry {
         const ack = await request(this.d.socket, SyncMessages.caseJoin, { caseId, afterSeq: c.contiguousSeq }, caseJoinAckSchema, this.d.ackTimeoutMs);
         if (isSyncError(ack)) { c.error = ack.error; this.d.changed(caseId); return; }
         c.error = null;
-        c.status = ack.status;
+        c.status = statusSince(ack.status, ack.lastSeq, c.stored.values());
         await this.accept(caseId, ack.events);
         c.lastSeq = Math.max(c.lastSeq, ack.lastSeq);
         this.d.changed(caseId);
@@ -115,9 +130,9 @@ export class CaseRegistry {
     if (!added.length) return;
     const done = added.filter((e) => this.d.entries.delete(e.id)).map((e) => e.id);
     this.d.changed(caseId);
-    // The cache is written before the outbox rows go: a crash between the two resends (a duplicate), never loses.
-    await this.d.storage.putStored(added);
-    await this.d.storage.deleteOutboxMany(done);
+    // One transaction: the cache rows and the outbox removals land together, or neither does (then the
+    // events are sent again and answered 'duplicate': never lost).
+    await this.d.storage.storeAccepted(added, done);
   }
 
   private pendingOf(caseId: string): TimelineItem[] {

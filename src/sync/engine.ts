@@ -158,8 +158,10 @@ export class SyncEngine {
       this.lastWrite = receipt;
       const p = this.entries.get(event.id);
       if (p?.live === 'saving') p.live = 'queued';
+      // Only now: nothing is sent before its IndexedDB write committed. Sent first, then drawn: telling
+      // the screen rebuilds its snapshot at once, and the push need not wait for that.
+      void this.pusher.pump();
       this.changed(event.caseId);
-      void this.pusher.pump(); // only now: nothing is sent before its IndexedDB write committed
     }, (err: unknown) => {
       this.entries.delete(event.id);
       this.changed(event.caseId);

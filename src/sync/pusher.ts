@@ -90,10 +90,12 @@ export class Pusher {
   private async push(batch: Pending[]): Promise<boolean> {
     const caseId = batch[0]!.event.caseId;
     for (const p of batch) { p.live = 'sent'; p.attempts++; }
+    // The message leaves within this call; the screen is told after (its snapshot is rebuilt at once).
+    const answer = request(this.d.socket, SyncMessages.eventsPush, { caseId, events: batch.map((p) => p.event) }, eventsPushAckSchema, this.d.ackTimeoutMs);
     this.d.changed(caseId);
     let ack;
     try {
-      ack = await request(this.d.socket, SyncMessages.eventsPush, { caseId, events: batch.map((p) => p.event) }, eventsPushAckSchema, this.d.ackTimeoutMs);
+      ack = await answer;
     } catch (err) {
       this.d.onError((err as Error).message);
       this.requeue(batch);

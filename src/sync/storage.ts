@@ -1,11 +1,11 @@
-import { del, delMany, get, promisifyRequest, set, type UseStore } from 'idb-keyval';
+import { del, get, promisifyRequest, set, type UseStore } from 'idb-keyval';
 import type { StoredEvent } from '#shared/schemas/events.ts';
 import { outboxEntrySchema, type OutboxEntry, type AuditEntry } from './outbox.ts';
 
 /**
  * What the tablet keeps in IndexedDB (one database, default name "ledgerline"):
- *   outbox  key event id            → OutboxEntry (events not yet accepted, and refused ones); written
- *                                      with durability 'strict', so a tap survives a crash or power loss
+ *   outbox  key event id            → OutboxEntry (events not yet accepted, and refused ones); a tap is
+ *                                      written with durability 'strict', so it survives a crash or power loss
  *   events  key [caseId, seq]       → StoredEvent (the accepted log of each opened case, for offline reloads)
  *   meta    key 'deviceId' | 'clock' → the tablet's id; the last clock estimate
  *   audit   key auto-increment      → AuditEntry (what a person discarded or replaced, kept on the tablet)
@@ -69,18 +69,26 @@ export function openSyncStorage(dbName = 'ledgerline', now: () => number = () =>
       return getDb().then(write);
     },
     deleteOutbox: (id: string) => del(id, outbox),
-    deleteOutboxMany: (ids: string[]) => (ids.length ? delMany(ids, outbox) : Promise.resolve()),
     /** Every outbox entry, oldest first (UUIDv7 keys sort by creation time). Unreadable rows are skipped, never deleted. */
     async listOutbox(): Promise<OutboxEntry[]> {
       const rows = await outbox('readonly', (s) => promisifyRequest(s.getAll()));
       return rows.flatMap((r) => { const p = outboxEntrySchema.safeParse(r); return p.success ? [p.data] : []; });
     },
-    async putStored(list: readonly StoredEvent[]): Promise<void> {
-      if (!list.length) return;
-      await events('readwrite', (s) => {
-        for (const e of list) s.put(e, [e.caseId, e.seq]);
-        return promisifyRequest(s.transaction);
-      });
+    /**
+     * Accepted events into the cache and, in the same transaction, their outbox rows out: both or
+     * neither. Relaxed durability is enough here: what a power cut loses is only sent again and
+     * answered 'duplicate' with its sequence; a tap itself is written 'strict' (putOutbox).
+     */
+    async storeAccepted(list: readonly StoredEvent[], doneIds: readonly string[]): Promise<void> {
+      if (!list.length && !doneIds.length) return;
+      const db = await getDb();
+      const tx = db.transaction(['events', 'outbox'], 'readwrite', { durability: 'relaxed' });
+      const cached = tx.objectStore('events');
+      for (const e of list) cached.put(e, [e.caseId, e.seq]);
+      const queued = tx.objectStore('outbox');
+      for (const id of doneIds) queued.delete(id);
+      tx.commit?.();
+      await promisifyRequest(tx);
     },
     /** The accepted events of a case held on the tablet, by sequence. */
     listStored: (caseId: string): Promise<StoredEvent[]> =>

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { cases, events } from '#server/db/schema/index.ts';
+import { cases, events, session } from '#server/db/schema/index.ts';
 import { signIn } from './factories.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
 import { newCase, push, signedInTeam, startNode, stopAll, tablet, tap, type SignedInTeam } from './sync-helpers.ts';
@@ -133,6 +133,24 @@ describe('pushing events over the socket', () => {
     expect(seqs).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
     expect(await statusOf(c.caseId)).toMatchObject({ lastSeq: 40 });
   });
+
+  it('stores an event sent by two tablets at once exactly once: one is told accepted, the other duplicate, with one sequence', async () => {
+    const c = await caseWithTeam();
+    const [a, b] = await Promise.all([tablet(url, c.cookies.nurse), tablet(url, c.cookies.endoscopist)]);
+    // A shared tablet's queued taps sent again by a colleague's tablet while the first push is in flight.
+    const shared = Array.from({ length: 20 }, () => tap('injection', c.caseId, c.members.nurse.id, { payload: { volumeMl: 2 } }));
+    const own = (k: number) => Array.from({ length: 5 }, () => tap('coagulation', c.caseId, c.members.endoscopist.id, { device: `tablet-${k}` }));
+    const [ackA, ackB, ackOwn1, ackOwn2] = await Promise.all([push(a, c.caseId, shared), push(b, c.caseId, shared), push(a, c.caseId, own(1)), push(b, c.caseId, own(2))]);
+    const stored = await seqsOf(c.caseId);
+    expect(stored.map((r) => r.seq)).toEqual(Array.from({ length: 30 }, (_, i) => i + 1));
+    const seqOf = new Map(stored.map((r) => [r.id, r.seq]));
+    shared.forEach((e, i) => {
+      const pair = [ackA.results[i], ackB.results[i]];
+      expect(pair.map((r) => r.status).sort()).toEqual(['accepted', 'duplicate']);
+      expect(pair.map((r) => r.seq)).toEqual([seqOf.get(e.id), seqOf.get(e.id)]);
+    });
+    expect([...ackOwn1.results, ...ackOwn2.results].every((r) => r.status === 'accepted')).toBe(true);
+  });
 });
 
 describe('who may push', () => {
@@ -156,6 +174,18 @@ describe('who may push', () => {
 
   it('refuses a socket without a session at the handshake', async () => {
     await expect(tablet(url)).rejects.toMatchObject({ message: 'Sign in first', data: { code: 'unauthorized' } });
+  });
+
+  it('refuses a push once the socket\'s session has expired, though its socket is still open, and stores nothing', async () => {
+    const c = await caseWithTeam();
+    const cookie = await signIn(t, c.members.nurse); // a session of its own, so the team's stays valid
+    const s = await tablet(url, cookie);
+    expect(await push(s, c.caseId, [tap('scope_in', c.caseId, c.members.nurse.id)])).toMatchObject({ results: [{ status: 'accepted' }] });
+    const token = decodeURIComponent(cookie.match(/session_token=([^;]+)/)![1]!).split('.')[0]!;
+    await t.db.update(session).set({ expiresAt: new Date(Date.now() - 1_000) }).where(eq(session.token, token));
+    expect(await push(s, c.caseId, [tap('marking', c.caseId, c.members.nurse.id)])).toMatchObject({ code: 'unauthorized' });
+    expect(await s.timeout(5_000).emitWithAck('case.join', { caseId: c.caseId, afterSeq: 0 })).toMatchObject({ code: 'unauthorized' });
+    expect((await seqsOf(c.caseId)).length).toBe(1);
   });
 
   it('checks the session again at each join: a signed-out session can no longer join or push', async () => {

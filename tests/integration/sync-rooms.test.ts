@@ -50,6 +50,23 @@ describe('case rooms', () => {
     await eventually(() => expect(seenOnA.flatMap((m) => m.events.map((x) => [x.id, x.seq]))).toEqual([[e.id, 1]]));
   });
 
+  it('tells tablets on node A of a large push made on node B: every event once, in order, in messages of at most 100, as node B\'s own tablets hear it', async () => {
+    const caseId = await newCase(t, team);
+    const onA = await tablet(nodeA, team.cookies.nurse);
+    const [sender, besideIt] = await Promise.all([tablet(nodeB, team.cookies.endoscopist), tablet(nodeB, team.cookies.supervisor)]);
+    await Promise.all([join(onA, caseId), join(sender, caseId), join(besideIt, caseId)]);
+    const [seenOnA, seenBySender, seenBeside] = [recordedBy(onA), recordedBy(sender), recordedBy(besideIt)];
+    const batch = Array.from({ length: 250 }, (_, i) => tap('injection', caseId, team.members.endoscopist.id, { payload: { volumeMl: 1 + (i % 5) } }));
+    expect((await push(sender, caseId, batch)).results.every((r: { status: string }) => r.status === 'accepted')).toBe(true);
+    const all = (seen: typeof seenOnA) => seen.flatMap((m) => m.events);
+    await eventually(() => expect(all(seenOnA)).toHaveLength(250));
+    await eventually(() => expect(all(seenBeside)).toHaveLength(250));
+    expect(all(seenOnA).map((e) => [e.id, e.seq])).toEqual(batch.map((e, i) => [e.id, i + 1]));
+    expect(all(seenOnA)).toEqual(all(seenBeside));
+    expect(seenOnA.map((m) => m.events.length)).toEqual([100, 100, 50]);
+    expect(seenBySender).toEqual([]);
+  });
+
   it('resumes after a reconnect from the last sequence held: only what came after it', async () => {
     const caseId = await newCase(t, team);
     const s = await tablet(nodeA, team.cookies.nurse);

@@ -3,7 +3,7 @@ import { can } from '#shared/domain/permissions.ts';
 import { roleSchema, type Role } from '#shared/schemas/common.ts';
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { SyncErrorCode } from '#shared/contracts/sync.ts';
-import { findCase, roleInUnit } from './queries.ts';
+import { findCaseWithRole } from './queries.ts';
 
 /** A user's standing in one case: the case's unit and status, and the user's role in that unit. */
 export type CaseAccess = { caseId: string; unitId: string; status: CaseStatus; lastSeq: number; role: Role };
@@ -16,8 +16,8 @@ export type AccessDenied = { code: Extract<SyncErrorCode, 'not_found' | 'forbidd
  * another unit's case ids reveal nothing.
  */
 export async function caseAccess(db: Tx, userId: string, caseId: string): Promise<CaseAccess | AccessDenied> {
-  const row = await findCase(db, caseId);
-  const role = row ? roleSchema.safeParse(await roleInUnit(db, userId, row.unitId)) : null;
+  const row = await findCaseWithRole(db, caseId, userId);
+  const role = row ? roleSchema.safeParse(row.role) : null;
   if (!row || !role?.success) return { code: 'not_found', message: 'No such case in your unit' };
   return { caseId: row.id, unitId: row.unitId, status: row.status as CaseStatus, lastSeq: row.lastSeq, role: role.data };
 }

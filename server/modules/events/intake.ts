@@ -1,6 +1,6 @@
 import { jsonBytes, MAX_EVENT_BYTES, toIssues } from '#shared/contracts/sync.ts';
 import { newEventSchema, type NewEvent, type StoredEvent } from '#shared/schemas/events.ts';
-import type { EventRow } from './queries.ts';
+import type { EventRow, NewEventRow } from './queries.ts';
 
 /**
  * The first, stateless check of each pushed item: size, schema, case. What passes is an event; what
@@ -53,9 +53,14 @@ export function rowToStored(row: EventRow): StoredEvent {
   } as StoredEvent;
 }
 
-export function eventToRow(e: NewEvent, seq: number) {
+export function eventToRow(e: NewEvent, seq: number): NewEventRow {
   return {
-    id: e.id, caseId: e.caseId, seq, kind: e.kind, deviceTime: new Date(e.deviceTime), offsetMs: e.offsetMs,
-    offsetUncertaintyMs: e.offsetUncertaintyMs, author: e.author, device: e.device, payload: e.payload as Record<string, unknown>,
+    id: e.id, caseId: e.caseId, seq, kind: e.kind, deviceTime: new Date(e.deviceTime).toISOString(), offsetMs: e.offsetMs,
+    offsetUncertaintyMs: e.offsetUncertaintyMs, author: e.author, device: e.device, payload: e.payload,
   };
+}
+
+/** The stored form of an accepted event: as it was inserted, with the sequence and time the server gave it. */
+export function insertedToStored(row: NewEventRow, stored: { seq: number; receivedAt: Date }): StoredEvent {
+  return { ...row, seq: stored.seq, receivedAt: stored.receivedAt.toISOString() } as StoredEvent;
 }

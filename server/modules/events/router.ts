@@ -46,7 +46,7 @@ export function eventsRouter(ctx: ApiContext): Router {
     if (isDenied(access)) throw httpError(access);
     const denial = recordDenial(access);
     if (denial) throw httpError(denial);
-    const { results, stored } = await recordEvents(db, { caseId: id, unitId: access.unitId }, events);
+    const { results, stored } = await recordEvents(db, { caseId: id, access: Promise.resolve(access) }, events);
     announceRecorded(db, id, stored);
     res.json({ results });
   });

@@ -3,18 +3,18 @@ import { EVENTS_PAGE_SIZE, type EventsPage, type PushResult } from '#shared/cont
 import { rolesFor } from '#shared/domain/permissions.ts';
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { EventKind, NewEvent, StoredEvent } from '#shared/schemas/events.ts';
-import { checkItem, eventToRow, rowToStored, sameContent, type Checked } from './intake.ts';
-import {
-  advanceCase, eventIdsInCase, eventsAfter, findCase, findEventsByIds, insertEvents, lockCase, membersWithRoles,
-} from './queries.ts';
+import { checkItem, eventToRow, insertedToStored, rowToStored, sameContent, type Checked } from './intake.ts';
+import { caseMembersWithRoles, eventsAfter, findCase, findEventsByIds, insertEventsAndAdvance, lockCase } from './queries.ts';
 
 /**
  * Storing a push of events, idempotently, with a gap-free per-case sequence.
  *
  * One transaction per push. The case row is locked first (SELECT … FOR UPDATE), so pushes to one case
- * from any tablet through any server node take their turn; the accepted events then get
- * lastSeq + 1 … lastSeq + n from one `UPDATE cases SET last_seq = last_seq + n … RETURNING`, and are
- * inserted with INSERT … ON CONFLICT (id) DO NOTHING. An id already stored is a repeat delivery
+ * from any tablet through any server node take their turn; the events the push names (its ids and the
+ * targets of its voids and amends) are read next, in one statement taken after the lock, so it sees
+ * every push committed before. The accepted events get lastSeq + 1 … lastSeq + n (lastSeq as locked)
+ * and are inserted with INSERT … ON CONFLICT (id) DO NOTHING in the same statement as the
+ * `UPDATE cases SET last_seq = last_seq + n` (a data-modifying CTE). An id already stored is a repeat delivery
  * ('duplicate', with the sequence it got then) when its content is the same, and refused when it is not.
  * Should an id be taken concurrently by another case's push (only a forged id can), fewer rows come
  * back than sequences were taken: the transaction is rolled back and run again, so no gap is left.
@@ -28,6 +28,12 @@ import {
  *      `void`; a cancelled case takes nothing;
  *   4. a `void` or `amend` names an event of this case (stored, or earlier in the same push).
  * Status moves: the first accepted event makes a scheduled case recording; an accepted sign_out closes it.
+ *
+ * Round trips to the database, each one a wait on a busy machine, run side by side where the
+ * guarantees allow: the caller's checks (the session, the case access) and the read of the recorders
+ * of rule 2 go out at once, before the transaction; inside it there are BEGIN, the lock, one read, one
+ * write and the COMMIT. Nothing waits for a pooled connection while it holds one (a transaction that
+ * did could wait for ever once every connection is held by such transactions).
  */
 
 const RECORDER_ROLES = rolesFor('event.record');
@@ -36,13 +42,28 @@ class LostRace extends Error {}
 
 export type RecordOutcome = { results: PushResult[]; stored: StoredEvent[] };
 
-export async function recordEvents(db: Db, target: { caseId: string; unitId: string }, items: readonly unknown[]): Promise<RecordOutcome> {
-  const checked = items.map((item) => checkItem(item, target.caseId));
+/**
+ * What a push waits on before its transaction begins. `access` resolves once the pusher may record in
+ * the case and rejects (with the refusal to answer) otherwise; `confirmed`, when given (the socket's
+ * session check), must resolve too, and its refusal comes first.
+ */
+export type PushGate = { caseId: string; access: Promise<unknown>; confirmed?: Promise<unknown> };
+
+export async function recordEvents(db: Db, gate: PushGate, items: readonly unknown[]): Promise<RecordOutcome> {
+  const { caseId } = gate;
+  const checked = items.map((item) => checkItem(item, caseId));
   const authors = [...new Set(checked.flatMap((c) => (c.ok ? [c.event.author] : [])))];
-  const recorders = await membersWithRoles(db, target.unitId, authors, RECORDER_ROLES);
+  // Read beside the checks (by the case's own unit), not under the lock: membership is not what the lock orders.
+  const recordersRead = caseMembersWithRoles(db, caseId, authors, RECORDER_ROLES);
+  const confirmed = gate.confirmed ?? Promise.resolve();
+  const [, , recorders] = await Promise.all([
+    confirmed,
+    gate.access.catch(async (err: unknown) => { await confirmed; throw err; }),
+    recordersRead,
+  ]);
   for (let attempt = 1; ; attempt++) {
     try {
-      return await db.transaction((tx) => storeBatch(tx, target.caseId, checked, recorders));
+      return await db.transaction((tx) => storeBatch(tx, caseId, checked, recorders));
     } catch (err) {
       if (!(err instanceof LostRace) || attempt >= 3) throw err;
     }
@@ -66,8 +87,11 @@ async function storeBatch(tx: Tx, caseId: string, checked: Checked[], recorders:
   const locked = await lockCase(tx, caseId);
   if (!locked) throw new Error(`case ${caseId} not found after its access check`);
   const valid = checked.flatMap((c) => (c.ok ? [c.event] : []));
-  const existing = new Map((await findEventsByIds(tx, valid.map((e) => e.id))).map((r) => [r.id, rowToStored(r)]));
-  const knownTargets = await eventIdsInCase(tx, caseId, valid.flatMap((e) => targetOf(e) ?? []));
+  const named = [...new Set([...valid.map((e) => e.id), ...valid.flatMap((e) => targetOf(e) ?? [])])];
+  const namedRows = await findEventsByIds(tx, named);
+  const found = new Map(namedRows.map((r) => [r.id, r]));
+  const existing = new Map(valid.flatMap((e) => { const r = found.get(e.id); return r ? [[e.id, rowToStored(r)] as const] : []; }));
+  const knownTargets = new Set(namedRows.filter((r) => r.caseId === caseId).map((r) => r.id));
 
   let status = locked.status as CaseStatus;
   const accepted: NewEvent[] = [];
@@ -101,10 +125,11 @@ async function storeBatch(tx: Tx, caseId: string, checked: Checked[], recorders:
   if (accepted.length) {
     const n = accepted.length;
     const closing = status === 'closed' && locked.status !== 'closed';
-    const lastSeq = await advanceCase(tx, caseId, n, status, closing);
-    const rows = await insertEvents(tx, accepted.map((e, k) => eventToRow(e, lastSeq - n + 1 + k)));
+    const toInsert = accepted.map((e, k) => eventToRow(e, locked.lastSeq + 1 + k));
+    const rows = await insertEventsAndAdvance(tx, caseId, toInsert, status, closing);
     if (rows.length !== n) throw new LostRace();
-    for (const r of rows) inserted.set(r.id, rowToStored(r));
+    const given = new Map(rows.map((r) => [r.id, r]));
+    for (const row of toInsert) inserted.set(row.id, insertedToStored(row, given.get(row.id)!));
   }
   const results = plan.map((p): PushResult => {
     if (!('pending' in p)) return p;
