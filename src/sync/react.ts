@@ -1,4 +1,4 @@
-import { createContext, createElement, useCallback, useContext, useEffect, useSyncExternalStore, type ReactNode } from 'react';
+import { createContext, createElement, useCallback, useContext, useEffect, useMemo, useSyncExternalStore, type ReactNode } from 'react';
 import type { EventKind, NewEventOf } from '#shared/schemas/events.ts';
 import type { CaseSnapshot } from './case-view.ts';
 import type { SyncEngine, TapInput } from './engine.ts';
@@ -36,6 +36,26 @@ export function useCaseEvents(caseId: string): CaseSnapshot {
 export function useSyncStatus(): SyncStatus {
   const engine = useSyncEngine();
   return useSyncExternalStore(engine.status.subscribe, engine.status.getSnapshot, engine.status.getSnapshot);
+}
+
+/**
+ * A part of the sync status, re-rendering its user only when that part changed (`same` says when it did
+ * not): the status is rebuilt on every step of every tap (saving, queued, sent, accepted), and most
+ * of those steps change nothing a given part shows. `select` and `same` should keep one identity.
+ */
+export function useSyncStatusPart<T>(select: (s: SyncStatus) => T, same: (a: T, b: T) => boolean): T {
+  const engine = useSyncEngine();
+  const getPart = useMemo(() => {
+    let last: { status: SyncStatus; part: T } | null = null;
+    return () => {
+      const status = engine.status.getSnapshot();
+      if (last?.status === status) return last.part;
+      const part = select(status);
+      last = { status, part: last && same(last.part, part) ? last.part : part };
+      return last.part;
+    };
+  }, [engine, select, same]);
+  return useSyncExternalStore(engine.status.subscribe, getPart, getPart);
 }
 
 /**

@@ -4,7 +4,8 @@ import type { CheckRecord } from '#shared/domain/record/types.ts';
 import type { CaseSummary } from '#shared/schemas/cases.ts';
 import { buttonClass } from '@/components/ui/button.tsx';
 import { useTheme } from '@/lib/theme.ts';
-import { useSyncEngine, useSyncStatus } from '@/sync/react.ts';
+import type { SyncStatus } from '@/sync/index.ts';
+import { useSyncEngine, useSyncStatusPart } from '@/sync/react.ts';
 import { CaseClock, type ClockView } from './case-clock.tsx';
 import { ChecksStatus } from './checks-status.tsx';
 import { ConnectionStrip } from './connection-strip.tsx';
@@ -49,10 +50,18 @@ export const CaptureHeader = memo(function CaptureHeader({ caseId, summary, cloc
   );
 });
 
-/** The connection strip, subscribed to the sync status on its own: a change of the waiting count redraws only it. */
+type ConnectionView = Pick<SyncStatus, 'state' | 'waiting' | 'lastError'> & { refused: number };
+const connectionView = (s: SyncStatus): ConnectionView => ({ state: s.state, waiting: s.waiting, refused: s.refused.length, lastError: s.lastError });
+const sameConnection = (a: ConnectionView, b: ConnectionView) =>
+  a.state === b.state && a.waiting === b.waiting && a.refused === b.refused && a.lastError === b.lastError;
+
+/**
+ * The connection strip, subscribed to the sync status on its own: only a change of what it shows
+ * redraws it (a tap going from saving to queued to sent changes none of it).
+ */
 function LiveConnection({ onOpenRefused }: { onOpenRefused: () => void }) {
-  const status = useSyncStatus();
-  return <ConnectionStrip state={status.state} waiting={status.waiting} refused={status.refused.length} lastError={status.lastError} onOpenRefused={onOpenRefused} />;
+  const view = useSyncStatusPart(connectionView, sameConnection);
+  return <ConnectionStrip {...view} onOpenRefused={onOpenRefused} />;
 }
 
 /** Server minus tablet clock (ms, 0 before the first sample); re-renders its user only when it changes. */

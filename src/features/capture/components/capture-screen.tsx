@@ -11,8 +11,8 @@ import { useCaseSnapshot } from '../hooks/use-case-snapshot.ts';
 import { useEventId } from '../hooks/use-event-id.ts';
 import { useKeptPairs } from '../hooks/use-kept-pairs.ts';
 import { useWakeLock } from '../hooks/use-wake-lock.ts';
+import { afterPaint } from '../hooks/after-paint.ts';
 import { haptic, vibrate } from '../hooks/haptics.ts';
-import { latestOpenBleed } from '../live-counts.ts';
 import type { TapButton } from '../vocabulary.ts';
 import { CaptureHeader, useClockOffset } from './capture-header.tsx';
 import { CounterBoard } from './counter-board.tsx';
@@ -57,12 +57,6 @@ function RefusedSheet({ onClose, ItemInput }: { onClose: () => void; ItemInput?:
 const sameCheck = (a: CheckRecord, b: CheckRecord) =>
   a.status === b.status && a.eventId === b.eventId && a.atMs === b.atMs && a.reason === b.reason && a.answeredNo.join() === b.answeredNo.join();
 
-/** Run `fn` once the next frame has been painted (rAF, then a task after it). */
-function afterPaint(fn: () => void): void {
-  if (typeof requestAnimationFrame === 'function') requestAnimationFrame(() => setTimeout(fn, 0));
-  else setTimeout(fn, 0);
-}
-
 const idLabel = (id: string) => id;
 
 /** The recorder: one tap per event, counted and shown at once, kept on the tablet first. */
@@ -99,9 +93,8 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
   const [sheet, setSheet] = useState<'time-out' | 'sign-out' | 'refused' | null>(null);
   const [kept, keep] = useKeptPairs(caseId);
 
-  // The tap handler reads the record through a ref so that it keeps one identity (the pad never re-renders).
-  const recordRef = useRef(model.record);
-  recordRef.current = model.record;
+  // The tap handler reads the tally through a ref so that it keeps one identity (the pad never re-renders).
+  const { tally } = model;
 
   const record = useCallback(<K extends EventKind>(kind: K, payload: PayloadOf<K>): Promise<NewEvent> => {
     const p = recordTap({ caseId, kind, payload }) as Promise<NewEvent>;
@@ -120,7 +113,7 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
     vibrate(haptic.tap);
     const payload: Record<string, unknown> = { ...btn.fixed };
     if (btn.kind === 'haemostasis') {
-      const open = latestOpenBleed(recordRef.current);
+      const open = tally.current?.openBleed;
       if (open) payload.bleedId = open.bleedId;
     }
     const event = record(btn.kind, payload as PayloadOf<typeof btn.kind>);
@@ -134,7 +127,7 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
         ? { mode: 'after-tap', event, full: false, target: { key, kind: btn.kind, label: btn.label, timeMs: at + offsetMs, payload, voided: false } }
         : null);
     });
-  }, [record, offsetMs]);
+  }, [record, offsetMs, tally]);
 
   const amend = useCallback((id: string, fields: Record<string, unknown>) => void record('amend', { targetId: id, fields }).catch(() => undefined), [record]);
   const voidEvent = useCallback((id: string, reason: string) => void record('void', { targetId: id, reason }).catch(() => undefined), [record]);
@@ -173,6 +166,9 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
   const moreAfterTap = useCallback(() => setPanel((p) => (p?.mode === 'after-tap' ? { ...p, full: true } : p)), []);
   // The tapped event's id, for the full sheet's scan field to link a label to it (the strip has no scan field).
   const afterTapId = useEventId(panel?.mode === 'after-tap' && panel.full ? panel.event : undefined);
+  // The sign-out sheet reconciles the record as it is now, not as of the last paint.
+  const { recordNow } = model;
+  const signOutRecord = useMemo(() => (sheet === 'sign-out' ? recordNow() : null), [sheet, recordNow]);
   const pairs = useMemo(() => snapshot.nearDuplicates.filter((p) => !kept.has(p.key)), [snapshot.nearDuplicates, kept]);
 
   return (
@@ -224,8 +220,8 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
 
       {/* Mounted only while open: the sheets cost nothing on the path of a tap. */}
       {sheet === 'time-out' && <TimeOutSheet open onClose={closeSheet} onRecord={(p) => void record('time_out', p).catch(() => undefined)} />}
-      {sheet === 'sign-out' && (
-        <SignOutSheet open onClose={closeSheet} record={model.record} itemLabel={itemLabel} onRecord={(p) => void record('sign_out', p).catch(() => undefined)} />
+      {sheet === 'sign-out' && signOutRecord && (
+        <SignOutSheet open onClose={closeSheet} record={signOutRecord} itemLabel={itemLabel} onRecord={(p) => void record('sign_out', p).catch(() => undefined)} />
       )}
       {sheet === 'refused' && <RefusedSheet onClose={closeSheet} ItemInput={ItemInput} />}
     </div>
