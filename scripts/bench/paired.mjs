@@ -39,7 +39,7 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
     const pageA = await openCapture(a, caseId, newestId);
     const cdpA = await a.newCDPSession(pageA);
     await pageA.evaluate(installPaintProbe, { target: BUTTON, counter: COUNTER, row: ROW });
-    await pageA.evaluate(() => performance.clearMarks('capture:tap-durable'));
+    await pageA.evaluate(() => performance.clearMarks('sync:tap-durable'));
     const buttonAt = await pageA.evaluate(centreOf, BUTTON);
 
     const floorTap = async (k) => { await touchTap(cdpF, tapAt); await waitInPage(floor, (n) => window.__benchProbe.samples.length >= n, k); };
@@ -57,8 +57,8 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
     const idb = (await read(floor, () => window.benchIdbSamples)).slice(warmup);
     const paint = (await read(pageA, () => window.__benchProbe.samples)).slice(warmup);
     const tapTimes = (await read(pageA, () => window.__benchProbe.taps)).slice(warmup);
-    await waitInPage(pageA, (n) => performance.getEntriesByName('capture:tap-durable').length >= n, warmup + taps);
-    const marks = (await read(pageA, () => performance.getEntriesByName('capture:tap-durable').map((m) => m.startTime))).slice(warmup);
+    await waitInPage(pageA, (n) => performance.getEntriesByName('sync:tap-durable').length >= n, warmup + taps);
+    const marks = (await read(pageA, () => performance.getEntriesByName('sync:tap-durable').map((m) => m.startTime))).slice(warmup);
     const durable = tapTimes.map((t0, i) => marks[i] - t0);
 
     // CPU 4× slower on both pages (DevTools CPU throttling): frame_floor_cpu4x and tap_paint_cpu4x.

@@ -98,7 +98,7 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
 
   const record = useCallback(<K extends EventKind>(kind: K, payload: PayloadOf<K>): Promise<NewEvent> => {
     const p = recordTap({ caseId, kind, payload }) as Promise<NewEvent>;
-    p.then(() => performance.mark('capture:tap-durable'), (err: unknown) => {
+    p.catch((err: unknown) => {
       vibrate(haptic.refused);
       notify(`Not saved on this tablet: ${err instanceof Error ? err.message : String(err)}`, 'danger');
     });

@@ -1,13 +1,15 @@
 import { startTransition, useEffect, useReducer } from 'react';
 import type { CaseSnapshot } from '@/sync/index.ts';
 import { useSyncEngine } from '@/sync/react.ts';
+import { afterPaint } from './after-paint.ts';
 
 /**
  * The case as this tablet holds it, like the bridge's useCaseEvents, with one difference in timing: a
  * change made inside the tap itself (the event shown as 'saving') is drawn at once, in the tap's own
  * frame, while the changes that follow it (saved, sent, accepted, another tablet's taps) are drawn as
- * transitions that yield to the browser, at most one per BURST_GAP_MS, so they never hold back the
- * frame that shows the tap. (useSyncExternalStore renders every change synchronously, whatever caused it.)
+ * transitions that yield to the browser, at most one per BURST_GAP_MS, and none before the frame that
+ * shows the tap has been painted, so they never hold it back. (useSyncExternalStore renders every change
+ * synchronously, whatever caused it.)
  */
 export function useCaseSnapshot(caseId: string): CaseSnapshot {
   const engine = useSyncEngine();
@@ -19,11 +21,21 @@ export function useCaseSnapshot(caseId: string): CaseSnapshot {
   useEffect(() => {
     let last = -Infinity;
     let timer: ReturnType<typeof setTimeout> | undefined;
+    // Set from a tap until its frame is on screen: what changes meanwhile (its write committed, its push
+    // sent and answered) waits for that paint.
+    let tapFrame: (() => void) | null = null;
+    let held = false;
     const now = () => performance.now();
     const later = () => { timer = undefined; last = now(); startTransition(redraw); };
     const update = () => {
       // Inside a pointer or key event React gives the update the event's (discrete) priority: drawn now.
-      if (isDiscreteEvent()) { last = now(); redraw(); return; }
+      if (isDiscreteEvent()) {
+        last = now();
+        redraw();
+        tapFrame ??= afterPaint(() => { tapFrame = null; if (held) { held = false; update(); } });
+        return;
+      }
+      if (tapFrame) { held = true; return; }
       // Otherwise at most one redraw per BURST_GAP_MS: the first change after a quiet spell (another
       // tablet's tap) is drawn at once, a burst (a queue being acknowledged) in steps.
       if (timer) return;
@@ -37,6 +49,7 @@ export function useCaseSnapshot(caseId: string): CaseSnapshot {
     return () => {
       unsubscribe();
       if (timer) clearTimeout(timer);
+      tapFrame?.();
       engine.closeCase(caseId);
     };
   }, [engine, view, caseId]);
