@@ -1,7 +1,7 @@
 // A project-local PostgreSQL cluster from Debian's packages, on 127.0.0.1 only, run as the postgres user
 // (initdb and postgres refuse root). Used by `npm start` (durable) and `npm test` (fsync off).
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, writeFileSync, chmodSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync, chmodSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import pg from 'pg';
 
@@ -76,7 +76,15 @@ export async function ensurePostgres({ dataDir, port, database, durable = true, 
   const status = spawnSync(isRoot() ? 'runuser' : pgctl, isRoot() ? ['-u', 'postgres', '--', pgctl, '-D', dataDir, 'status'] : ['-D', dataDir, 'status']);
   let startedHere = false;
   if (status.status !== 0) {
-    asPostgres(pgctl, ['-D', dataDir, '-l', join(dataDir, 'server.log'), '-w', '-t', '60', 'start']);
+    const serverLog = join(dataDir, 'server.log');
+    try {
+      asPostgres(pgctl, ['-D', dataDir, '-l', serverLog, '-w', '-t', '60', 'start']);
+    } catch (err) {
+      // pg_ctl only says "could not start server"; the reason (say, the port taken by another
+      // cluster) is in the server's log: put its last lines in the error.
+      const tail = existsSync(serverLog) ? readFileSync(serverLog, 'utf8').trim().split('\n').slice(-4).join('\n') : '';
+      throw new Error(`PostgreSQL did not start in ${dataDir} on 127.0.0.1:${port}${tail ? `:\n${tail}` : ''}`, { cause: err });
+    }
     startedHere = true;
   }
   const admin = new pg.Client({ host: '127.0.0.1', port, user: 'postgres', database: 'postgres' });
