@@ -1,5 +1,6 @@
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { NewEvent, StoredEvent } from '#shared/schemas/events.ts';
+import { statusAfterEvent } from '#shared/domain/case-status.ts';
 import { NearDuplicateIndex, type NearDuplicatePair } from '#shared/domain/near-duplicates.ts';
 import type { TapState } from './outbox.ts';
 
@@ -58,8 +59,7 @@ export class CaseState {
       this.seqs.add(e.seq);
       this.maxHeld = Math.max(this.maxHeld, e.seq);
       this.lastSeq = Math.max(this.lastSeq, e.seq);
-      if (e.kind === 'sign_out') this.status = 'closed';
-      else if (this.status === 'scheduled') this.status = 'recording';
+      this.status = statusAfterEvent(this.status, e.kind);
       added.push(e);
       this.insertAccepted({ id: e.id, event: e, state: 'accepted', seq: e.seq, receivedAt: e.receivedAt, reason: null });
     }

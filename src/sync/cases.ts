@@ -1,4 +1,5 @@
 import { caseJoinAckSchema, eventsRecordedSchema, isSyncError, okAckSchema, SyncMessages } from '#shared/contracts/sync.ts';
+import { statusAfterEvent } from '#shared/domain/case-status.ts';
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { StoredEvent } from '#shared/schemas/events.ts';
 import { buildCaseSnapshot, CaseState, type CaseSnapshot, type TimelineItem } from './case-view.ts';
@@ -9,15 +10,11 @@ import type { SyncStorage } from './storage.ts';
 
 /**
  * The status a join answer gives is as of its lastSeq; an event held beyond it (a push's ack or a
- * broadcast that overtook the answer) moves it on as CaseState.absorb does.
+ * broadcast that overtook the answer) moves it on, as CaseState.absorb does.
  */
 function statusSince(status: CaseStatus, asOfSeq: number, held: Iterable<StoredEvent>): CaseStatus {
   let now = status;
-  for (const e of held) {
-    if (e.seq <= asOfSeq) continue;
-    if (e.kind === 'sign_out') now = 'closed';
-    else if (now === 'scheduled') now = 'recording';
-  }
+  for (const e of held) if (e.seq > asOfSeq) now = statusAfterEvent(now, e.kind);
   return now;
 }
 

@@ -1,5 +1,6 @@
 import type { Db, Tx } from '#server/db/client.ts';
 import { EVENTS_PAGE_SIZE, type EventsPage, type PushResult } from '#shared/contracts/sync.ts';
+import { statusAfterEvent } from '#shared/domain/case-status.ts';
 import { rolesFor } from '#shared/domain/permissions.ts';
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { EventKind, NewEvent, StoredEvent } from '#shared/schemas/events.ts';
@@ -76,11 +77,6 @@ function statusRefusal(status: CaseStatus, kind: EventKind): string | null {
   return null;
 }
 
-function nextStatus(status: CaseStatus, kind: EventKind): CaseStatus {
-  if (kind === 'sign_out' && (status === 'scheduled' || status === 'recording')) return 'closed';
-  return status === 'scheduled' ? 'recording' : status;
-}
-
 const targetOf = (e: NewEvent) => (e.kind === 'void' || e.kind === 'amend' ? e.payload.targetId : null);
 
 async function storeBatch(tx: Tx, caseId: string, checked: Checked[], recorders: Set<string>): Promise<RecordOutcome> {
@@ -117,7 +113,7 @@ async function storeBatch(tx: Tx, caseId: string, checked: Checked[], recorders:
     if (target && !knownTargets.has(target) && !acceptedById.has(target)) return refuse(`The ${e.kind} names event ${target}, which is not in this case`);
     accepted.push(e);
     acceptedById.set(e.id, e);
-    status = nextStatus(status, e.kind);
+    status = statusAfterEvent(status, e.kind);
     return { pending: e.id, repeat: false };
   });
 

@@ -1,7 +1,7 @@
 import { buildRecord } from '#shared/domain/record/index.ts';
 import { isEventKind, validatePayload } from '#shared/domain/record/intake.ts';
 import type { CaseRecord, RecordEventInput } from '#shared/domain/record/types.ts';
-import { latestOpenBleed, type LiveCounts } from './live-counts.ts';
+import { latestOpenBleed, toLiveCounts, type LiveCounts } from './live-counts.ts';
 
 /**
  * The board's figures kept up to date tap by tap, without rebuilding the whole record on each one.
@@ -71,7 +71,6 @@ export function tallyFromRecord(inputs: readonly RecordEventInput[], record: Cas
   let ml = 0;
   for (const e of record.timeline) if (e.kind === 'injection') ml += e.payload.volumeMl ?? 0;
   const open = latestOpenBleed(record);
-  const c = record.counts;
   const ids = new Map<string, RecordEventInput>();
   const tied = new Set<number>();
   const named = new Set<string>();
@@ -89,12 +88,7 @@ export function tallyFromRecord(inputs: readonly RecordEventInput[], record: Cas
     inputs, ml, ids, tied, named, times,
     openBleed: open ? { bleedId: open.bleedId, startMs: open.startMs } : null,
     last: last ? { atMs: last.atMs, seq: last.seq, id: last.id } : null,
-    counts: {
-      clipsDeployed: c.clipsDeployed, clipsMisfired: c.clipsMisfired, loopsPlaced: c.loopsPlaced, bleedsOpen: c.bleedsOpen,
-      bleedsControlled: record.bleeds.filter((b) => b.controlledMs !== null).length,
-      openBleedSinceMs: open ? open.startMs : null,
-      injectionMl: boardMl(ml),
-    },
+    counts: toLiveCounts(record, 0), // offset 0: the open bleed's start stays on the corrected clock
   };
 }
 
