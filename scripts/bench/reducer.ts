@@ -103,7 +103,7 @@ export function benchReducer(): { reducer_20k_ms: number; reducer_growth_10x: nu
   for (let i = 0; i < 15; i++) t20k.push(timeOnce(log20k));
   const t10k: number[] = [];
   const t100k: number[] = [];
-  for (let i = 0; i < 7; i++) {
+  for (let i = 0; i < 11; i++) {
     t10k.push(timeOnce(log10k), timeOnce(log10k));
     t100k.push(timeOnce(log100k));
   }

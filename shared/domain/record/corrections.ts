@@ -1,4 +1,5 @@
-import { isEventKind, validatePayload, type Intake, type LogEntry } from './intake.ts';
+import type { IdIndex } from './id-index.ts';
+import { check, isEventKind, validatePayload, type Intake, type LogEntry } from './intake.ts';
 import type { Problem } from './types.ts';
 
 
@@ -9,7 +10,7 @@ import type { Problem } from './types.ts';
  * functional graph whose rings are found by one walk (the colouring of a depth-first search), and the
  * rest is a forest resolved leaves-first with an explicit stack.
  */
-function resolveVoids(voids: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): void {
+function resolveVoids(voids: LogEntry[], byId: IdIndex<LogEntry>, problems: Problem[]): void {
   const targetOf = new Map<string, string>();
   const voidersOf = new Map<string, string[]>();
   for (const e of voids) {
@@ -77,7 +78,7 @@ function merge(current: unknown, fields: Record<string, unknown>): Record<string
  * make a refused event valid (a mistyped size corrected). Voided amendments, and amendments of voided
  * events, have no effect; voids and amendments themselves are not amendable.
  */
-function applyAmendments(amends: LogEntry[], byId: Map<string, LogEntry>, problems: Problem[]): number {
+function applyAmendments(amends: LogEntry[], byId: IdIndex<LogEntry>, problems: Problem[]): number {
   const amendsOf = new Map<string, LogEntry[]>();
   for (const e of amends) {
     if (e.voidedBy) continue;
@@ -85,6 +86,7 @@ function applyAmendments(amends: LogEntry[], byId: Map<string, LogEntry>, proble
     const target = byId.get(targetId);
     if (targetId === e.id) { problems.push({ code: 'self_target', eventId: e.id, message: `amendment ${e.id} names itself` }); continue; }
     if (!target) { problems.push({ code: 'unknown_target', eventId: e.id, message: `amendment ${e.id} names ${targetId}, which is not in this case's log` }); continue; }
+    check(target);
     if (target.kind === 'void' || target.kind === 'amend' || target.status === 'unknown_kind') {
       problems.push({ code: 'not_amendable', eventId: e.id, message: `amendment ${e.id} names a ${target.status === 'unknown_kind' ? 'event of unknown kind' : target.kind}, which cannot be amended (void it instead)` });
       continue;
@@ -121,15 +123,10 @@ function applyAmendments(amends: LogEntry[], byId: Map<string, LogEntry>, proble
 
 /**
  * Applies voids, then amendments, writing the outcome on the entries (`voidedBy`, `amendedBy`, the amended
- * `payload`); reports every refused event that no void took away and no amendment mended. Returns the
- * number of amendments applied.
+ * `payload`). Returns the number of amendments applied. The refused events that no void took away and no
+ * amendment mended are reported as the timeline is built.
  */
 export function applyCorrections(log: Intake, problems: Problem[]): number {
   resolveVoids(log.voids, log.byId, problems);
-  const applied = applyAmendments(log.amends, log.byId, problems);
-  for (const e of log.refused) {
-    if (e.status === 'ok' || e.voidedBy) continue;
-    problems.push({ code: e.status, eventId: e.id, message: `event ${e.id} (${e.kind.slice(0, 40)}) left out: ${e.issue}` });
-  }
-  return applied;
+  return applyAmendments(log.amends, log.byId, problems);
 }

@@ -3,26 +3,37 @@ import type { BleedEpisode, CheckRecord, Counts, TimelineEvent, TimelineEventOf 
 /** Sums of millilitres kept to a thousandth, so 0.1 + 0.2 reads 0.3. */
 const roundMl = (x: number) => Math.round(x * 1000) / 1000;
 
-export function counts(timeline: TimelineEvent[], bleeds: BleedEpisode[]): Counts {
-  const c: Counts = {
-    clipsDeployed: 0, clipsMisfired: 0, loopsPlaced: 0, devicesApplied: 0, bleeds: bleeds.length,
-    bleedsOpen: bleeds.filter((b) => b.controlledMs === null).length,
-    haemostasisAttempts: bleeds.reduce((n, b) => n + b.attempts, 0), injections: 0, injectionMl: 0, images: 0, medications: 0,
-  };
-  let ml = 0;
-  for (const e of timeline) {
+/** The case's counts, one event at a time; the bleed figures come from the episodes at `finish`. */
+export class Counter {
+  private clipsDeployed = 0;
+  private clipsMisfired = 0;
+  private loopsPlaced = 0;
+  private devicesApplied = 0;
+  private injections = 0;
+  private ml = 0;
+  private images = 0;
+  private medications = 0;
+
+  add(e: TimelineEvent): void {
     switch (e.kind) {
-      case 'clip_fired': if (e.payload.outcome === 'deployed') c.clipsDeployed++; else c.clipsMisfired++; break;
-      case 'loop_placed': c.loopsPlaced++; break;
-      case 'device_applied': c.devicesApplied++; break;
-      case 'injection': c.injections++; ml += e.payload.volumeMl ?? 0; break;
-      case 'image': c.images++; break;
-      case 'medication': c.medications++; break;
+      case 'clip_fired': if (e.payload.outcome === 'deployed') this.clipsDeployed++; else this.clipsMisfired++; break;
+      case 'loop_placed': this.loopsPlaced++; break;
+      case 'device_applied': this.devicesApplied++; break;
+      case 'injection': this.injections++; this.ml += e.payload.volumeMl ?? 0; break;
+      case 'image': this.images++; break;
+      case 'medication': this.medications++; break;
       default: break;
     }
   }
-  c.injectionMl = roundMl(ml);
-  return c;
+
+  finish(bleeds: BleedEpisode[]): Counts {
+    return {
+      clipsDeployed: this.clipsDeployed, clipsMisfired: this.clipsMisfired, loopsPlaced: this.loopsPlaced, devicesApplied: this.devicesApplied,
+      bleeds: bleeds.length, bleedsOpen: bleeds.filter((b) => b.controlledMs === null).length,
+      haemostasisAttempts: bleeds.reduce((n, b) => n + b.attempts, 0), injections: this.injections, injectionMl: roundMl(this.ml),
+      images: this.images, medications: this.medications,
+    };
+  }
 }
 
 /** En bloc and pieces from the resection-complete tap (the first one, as the resection phase uses). */

@@ -1,10 +1,10 @@
 import { correctedTimeMs, type NewEvent, type StoredEvent } from '../../schemas/events.ts';
-import { bleedEpisodes } from './bleeds.ts';
-import { checkRecord, counts, resectionOutcome } from './counts.ts';
-import { deviceTallies } from './devices.ts';
+import { BleedEpisodes } from './bleeds.ts';
+import { checkRecord, Counter, resectionOutcome } from './counts.ts';
+import { DeviceTallies } from './devices.ts';
 import { recordFlags } from './flags.ts';
 import { computedNotes } from './notes.ts';
-import { DEFAULT_IDLE_GAP_MS, idleGaps, phases, scopeIntervals } from './phases.ts';
+import { DEFAULT_IDLE_GAP_MS, IdleGaps, phases, scopeIntervals } from './phases.ts';
 import { specimens, specimenSummary } from './specimen.ts';
 import { effectiveTimeline } from './timeline.ts';
 import type { CaseRecord, Problem, RecordEventInput, RecordOptions, TimelineEvent } from './types.ts';
@@ -26,16 +26,14 @@ const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 const problemOrder = (a: Problem, b: Problem) => cmp(a.eventId ?? '', b.eventId ?? '') || cmp(a.code, b.code) || cmp(a.message, b.message);
 
 /**
- * The kinds each pass reads. Every pass ignores the other kinds, so it is handed only its own events:
- * one routing pass over the timeline instead of a full pass each keeps long logs cache-friendly
- * (idle gaps alone need every event).
+ * The kinds each list-reading pass reads. Every pass ignores the other kinds, so it is handed only its own
+ * events, routed as each event joins the timeline. The passes that read most of the log (bleeds, devices,
+ * counts, idle gaps) take each event as it joins, while it and its payload are in the cache: on long logs
+ * every later pass over the events would cost a cache miss per event.
  */
 const PASS_KINDS = {
   scopes: ['scope_in', 'scope_out'],
   phases: ['marking', 'injection', 'incision', 'dissection', 'resection_complete', 'closure_start', 'clip_fired', 'loop_placed', 'closure_complete', 'specimen_retrieved'],
-  bleeds: ['bleed', 'haemostasis', 'clip_fired', 'coagulation'],
-  devices: ['device_opened', 'device_wasted', 'clip_fired', 'loop_placed', 'device_applied'],
-  counts: ['clip_fired', 'loop_placed', 'device_applied', 'injection', 'image', 'medication'],
   resection: ['resection_complete'],
   timeOut: ['time_out'],
   signOut: ['sign_out'],
@@ -52,14 +50,22 @@ const ROUTES: Map<string, Pass[]> = (() => {
   return routes;
 })();
 
-/** Each pass's events, in timeline order. */
-function route(timeline: TimelineEvent[]): Record<Pass, TimelineEvent[]> {
-  const out = Object.fromEntries(Object.keys(PASS_KINDS).map((p) => [p, []])) as unknown as Record<Pass, TimelineEvent[]>;
-  for (const e of timeline) {
-    const passes = ROUTES.get(e.kind);
-    if (passes) for (const p of passes) out[p].push(e);
-  }
-  return out;
+/** The passes fed one event at a time, and the lists of the others, filled as events join the timeline. */
+function passes(idleGapMs: number) {
+  const by = Object.fromEntries(Object.keys(PASS_KINDS).map((p) => [p, []])) as unknown as Record<Pass, TimelineEvent[]>;
+  const bleeds = new BleedEpisodes();
+  const devices = new DeviceTallies();
+  const counter = new Counter();
+  const gaps = new IdleGaps(idleGapMs);
+  const add = (e: TimelineEvent) => {
+    bleeds.add(e);
+    devices.add(e);
+    counter.add(e);
+    gaps.add(e);
+    const lists = ROUTES.get(e.kind);
+    if (lists) for (const p of lists) by[p].push(e);
+  };
+  return { by, bleeds, devices, counter, gaps, add };
 }
 
 /**
@@ -71,19 +77,19 @@ export function buildRecord(events: readonly RecordEventInput[] | unknown, optio
   const problems: Problem[] = [];
   const idleGapMs = typeof options.idleGapMs === 'number' && options.idleGapMs >= 0 ? options.idleGapMs : DEFAULT_IDLE_GAP_MS;
   try {
-    const { timeline, voided, amendmentsApplied } = effectiveTimeline(events, problems);
-    const by = route(timeline);
+    const { by, bleeds: bleedPass, devices: devicePass, counter, gaps, add } = passes(idleGapMs);
+    const { timeline, voided, amendmentsApplied } = effectiveTimeline(events, problems, add);
     const scopes = scopeIntervals(by.scopes);
     const phaseList = phases(by.phases, scopes);
-    const bleeds = bleedEpisodes(by.bleeds, scopes, problems);
-    const devices = deviceTallies(by.devices);
+    const bleeds = bleedPass.finish(scopes, problems);
+    const devices = devicePass.finish();
     const timeOut = checkRecord(by.timeOut, 'time_out');
     const specimenList = specimens(by.specimens);
     const specimen = specimenSummary(specimenList, phaseList);
     return {
       timeline, voided, amendmentsApplied, scopeIntervals: scopes, phases: phaseList,
       totalMinutes: phaseList.find((p) => p.name === 'total')?.minutes ?? null,
-      idleGaps: idleGaps(timeline, idleGapMs), bleeds, devices, counts: counts(by.counts, bleeds),
+      idleGaps: gaps.finish(), bleeds, devices, counts: counter.finish(bleeds),
       resection: resectionOutcome(by.resection), timeOut, signOut: checkRecord(by.signOut, 'sign_out'),
       specimens: specimenList, specimen, notes: computedNotes(by.notes, specimenList, specimen),
       flags: recordFlags(bleeds, devices, timeOut, scopes), problems: problems.sort(problemOrder),

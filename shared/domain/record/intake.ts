@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import { payloadSchemas, type EventKind } from '../../schemas/events.ts';
+import { IdIndex } from './id-index.ts';
 import type { Problem } from './types.ts';
 
 /** One distinct event of the log, checked against the vocabulary but not yet corrected. */
@@ -12,9 +13,10 @@ export type LogEntry = {
   device: string | null;
   /** The payload as delivered. */
   raw: unknown;
-  /** The parsed payload when it is valid for its kind, else null. */
+  /** The parsed payload when it is valid for its kind, else null (and null until checked). */
   payload: Record<string, unknown> | null;
-  status: 'ok' | 'unknown_kind' | 'invalid_payload';
+  /** 'unchecked' until `check` has read the payload against the vocabulary. */
+  status: 'unchecked' | 'ok' | 'unknown_kind' | 'invalid_payload';
   /** Why the payload was refused. */
   issue: string | null;
   /** Set by the corrections: the effective voids of this event, and the amendments applied to it. */
@@ -49,17 +51,23 @@ function toEntry(item: unknown): LogEntry | string {
   if (typeof e.atMs !== 'number' || !Number.isFinite(e.atMs)) return `event ${e.id} has no finite corrected time (atMs)`;
   const seq = typeof e.seq === 'number' && Number.isFinite(e.seq) ? e.seq : null;
   const raw = e.payload === undefined ? {} : e.payload;
-  return { id: e.id, kind: e.kind, atMs: e.atMs, seq, author: str(e.author), device: str(e.device), raw, payload: null, status: 'ok', issue: null, voidedBy: null, amendedBy: null };
+  return { id: e.id, kind: e.kind, atMs: e.atMs, seq, author: str(e.author), device: str(e.device), raw, payload: null, status: 'unchecked', issue: null, voidedBy: null, amendedBy: null };
 }
 
-function validate(entry: LogEntry): void {
+/**
+ * Checks the entry against the vocabulary, once: its kind, and its payload by the kind's schema. Done
+ * late, when the entry joins the timeline, so that the parsed payload is fresh in the cache for the passes
+ * that read it next; the corrections check the few entries they need first.
+ */
+export function check(entry: LogEntry): void {
+  if (entry.status !== 'unchecked') return;
   if (!isEventKind(entry.kind)) {
     entry.status = 'unknown_kind';
     entry.issue = `unknown kind "${entry.kind.slice(0, 40)}"`;
     return;
   }
   const parsed = payloadSchemas[entry.kind].safeParse(entry.raw);
-  if (parsed.success) entry.payload = parsed.data as Record<string, unknown>;
+  if (parsed.success) { entry.status = 'ok'; entry.payload = parsed.data as Record<string, unknown>; }
   else { entry.status = 'invalid_payload'; entry.issue = describeIssues(parsed.error); }
 }
 
@@ -76,48 +84,52 @@ function preferred(a: LogEntry, b: LogEntry): LogEntry {
 
 export type Intake = {
   entries: LogEntry[];
-  byId: Map<string, LogEntry>;
+  byId: IdIndex<LogEntry>;
   /** The valid voids and amendments, in log order: the corrections read only these, not the whole log. */
   voids: LogEntry[];
   amends: LogEntry[];
-  /** The entries refused by the vocabulary (unknown kind, invalid payload), in log order. */
-  refused: LogEntry[];
 };
 
 /**
- * Reads the delivered events: each id once (at-least-once delivery repeats events; a repeat counts once),
- * each checked against the vocabulary. A repeat that differs in content
- * is kept by a fixed rule and reported, so the result does not depend on delivery order. The few voids,
- * amendments and refused entries are listed apart (in log order), so that no later step has to look
- * through the whole log for them: on long logs each pass over every entry costs a cache miss per event.
+ * Reads the delivered events: each id once (at-least-once delivery repeats events; a repeat counts once).
+ * A repeat that differs in content is kept by a fixed rule and reported, so the result does not depend on
+ * delivery order. The few voids and amendments are checked and listed apart (in log order), so that no
+ * later step has to look through the whole log for them: on long logs each pass over every entry costs a
+ * cache miss per event. The other entries are checked as they join the timeline (`check`).
  */
 export function intake(events: unknown, problems: Problem[]): Intake {
-  const byId = new Map<string, LogEntry>();
-  const out: Intake = { entries: [], byId, voids: [], amends: [], refused: [] };
   if (!Array.isArray(events)) {
+    const out: Intake = { entries: [], byId: new IdIndex(), voids: [], amends: [] };
     problems.push({ code: 'malformed_event', eventId: null, message: 'the event log is not a list' });
     return out;
   }
+  // Each id's entry, in the order of its first delivery (a preferred repeat takes its place).
+  const byId = new IdIndex<LogEntry>(events.length);
+  const out: Intake = { entries: [], byId, voids: [], amends: [] };
+  const corrections: LogEntry[] = [];
   const conflicted = new Set<string>();
   for (const item of events) {
     const entry = toEntry(item);
     if (typeof entry === 'string') { problems.push({ code: 'malformed_event', eventId: null, message: entry }); continue; }
-    const before = byId.get(entry.id);
-    if (!before) { byId.set(entry.id, entry); continue; }
-    if (keyOf(before) !== keyOf(entry)) conflicted.add(entry.id);
-    byId.set(entry.id, preferred(before, entry));
+    const before = byId.add(entry);
+    if (before) {
+      if (keyOf(before) !== keyOf(entry)) conflicted.add(entry.id);
+      if (preferred(before, entry) !== entry) continue;
+      byId.replace(entry);
+    }
+    if (entry.kind === 'void' || entry.kind === 'amend') corrections.push(entry);
   }
   for (const id of conflicted) {
     problems.push({ code: 'duplicate_conflict', eventId: id, message: `event ${id} was delivered more than once with different content; the stored copy is used` });
   }
-  out.entries = [...byId.values()];
-  for (const entry of out.entries) {
-    validate(entry);
-    if (entry.status !== 'ok') out.refused.push(entry);
-    else if (entry.kind === 'void') out.voids.push(entry);
-    else if (entry.kind === 'amend') out.amends.push(entry);
+  out.entries = byId.items;
+  for (const entry of corrections) {
+    if (byId.get(entry.id) !== entry) continue; // a repeat preferred over it took its place
+    check(entry);
+    if (entry.status === 'ok') (entry.kind === 'void' ? out.voids : out.amends).push(entry);
   }
-  for (const list of [out.voids, out.amends, out.refused]) list.sort(compareLog);
+  out.voids.sort(compareLog);
+  out.amends.sort(compareLog);
   return out;
 }
 

@@ -69,18 +69,25 @@ export function phases(timeline: TimelineEvent[], scopes: ScopeInterval[]): Phas
   return out;
 }
 
-/** Pauses longer than `thresholdMs` between consecutive events while the scope is in (from its scope in to its scope out). */
-export function idleGaps(timeline: TimelineEvent[], thresholdMs: number): IdleGap[] {
-  const out: IdleGap[] = [];
-  let scopeIn = false;
-  let previous: TimelineEvent | null = null;
-  for (const e of timeline) {
-    if (scopeIn && previous && e.atMs - previous.atMs > thresholdMs) {
-      out.push({ startMs: previous.atMs, endMs: e.atMs, minutes: (e.atMs - previous.atMs) / MINUTE_MS, afterEventId: previous.id, beforeEventId: e.id });
+/** Pauses longer than `thresholdMs` between consecutive events while the scope is in (from its scope in to its scope out), one event at a time. */
+export class IdleGaps {
+  private readonly gaps: IdleGap[] = [];
+  private scopeIn = false;
+  private previous: TimelineEvent | null = null;
+
+  constructor(private readonly thresholdMs: number) {}
+
+  add(e: TimelineEvent): void {
+    const previous = this.previous;
+    if (this.scopeIn && previous && e.atMs - previous.atMs > this.thresholdMs) {
+      this.gaps.push({ startMs: previous.atMs, endMs: e.atMs, minutes: (e.atMs - previous.atMs) / MINUTE_MS, afterEventId: previous.id, beforeEventId: e.id });
     }
-    if (e.kind === 'scope_in') scopeIn = true;
-    else if (e.kind === 'scope_out') scopeIn = false;
-    previous = e;
+    if (e.kind === 'scope_in') this.scopeIn = true;
+    else if (e.kind === 'scope_out') this.scopeIn = false;
+    this.previous = e;
   }
-  return out;
+
+  finish(): IdleGap[] {
+    return this.gaps;
+  }
 }
