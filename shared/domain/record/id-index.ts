@@ -64,11 +64,12 @@ export class IdIndex<T extends Keyed> {
     return undefined;
   }
 
-  /** Puts `item` in the place of the item held for its id (which must be held). */
-  replace(item: T): void {
+  /** Puts `item` in the place of the item held for its id (which must be held); returns that place in `items`. */
+  replace(item: T): number {
     const place = this.slots[2 * this.find(item.id, hashOf(item.id)) + 1]!;
     if (place === 0) throw new Error(`replace: ${item.id} is not held`);
     this.items[place - 1] = item;
+    return place - 1;
   }
 
   private grow(): void {

@@ -4,7 +4,7 @@ import { checkRecord, Counter, resectionOutcome } from './counts.ts';
 import { DeviceTallies } from './devices.ts';
 import { recordFlags } from './flags.ts';
 import { computedNotes } from './notes.ts';
-import { DEFAULT_IDLE_GAP_MS, IdleGaps, phases, scopeIntervals } from './phases.ts';
+import { DEFAULT_IDLE_GAP_MS, IdleGaps, phases, RESECTION_START_KINDS, scopeIntervals } from './phases.ts';
 import { specimens, specimenSummary } from './specimen.ts';
 import { effectiveTimeline } from './timeline.ts';
 import type { CaseRecord, Problem, RecordEventInput, RecordOptions, TimelineEvent } from './types.ts';
@@ -33,6 +33,7 @@ const problemOrder = (a: Problem, b: Problem) => cmp(a.eventId ?? '', b.eventId 
  */
 const PASS_KINDS = {
   scopes: ['scope_in', 'scope_out'],
+  // The resection's start kinds are a third of a long log, and only the first counts: only it is routed.
   phases: ['marking', 'injection', 'incision', 'dissection', 'resection_complete', 'closure_start', 'clip_fired', 'loop_placed', 'closure_complete', 'specimen_retrieved'],
   resection: ['resection_complete'],
   timeOut: ['time_out'],
@@ -41,6 +42,7 @@ const PASS_KINDS = {
   notes: ['loop_placed', 'muscle_defect'],
 } as const satisfies Record<string, readonly TimelineEvent['kind'][]>;
 type Pass = keyof typeof PASS_KINDS;
+const RESECTION_START = new Set<string>(RESECTION_START_KINDS);
 
 const ROUTES: Map<string, Pass[]> = (() => {
   const routes = new Map<string, Pass[]>();
@@ -57,13 +59,19 @@ function passes(idleGapMs: number) {
   const devices = new DeviceTallies();
   const counter = new Counter();
   const gaps = new IdleGaps(idleGapMs);
+  let resectionStarted = false;
   const add = (e: TimelineEvent) => {
     bleeds.add(e);
     devices.add(e);
     counter.add(e);
     gaps.add(e);
     const lists = ROUTES.get(e.kind);
-    if (lists) for (const p of lists) by[p].push(e);
+    if (!lists) return;
+    if (RESECTION_START.has(e.kind)) {
+      if (resectionStarted) return;
+      resectionStarted = true;
+    }
+    for (const p of lists) by[p].push(e);
   };
   return { by, bleeds, devices, counter, gaps, add };
 }

@@ -84,6 +84,8 @@ function preferred(a: LogEntry, b: LogEntry): LogEntry {
 
 export type Intake = {
   entries: LogEntry[];
+  /** `times[i]` is the corrected time of `entries[i]`, kept as the log is read: the sort's keys. */
+  times: Float64Array;
   byId: IdIndex<LogEntry>;
   /** The valid voids and amendments, in log order: the corrections read only these, not the whole log. */
   voids: LogEntry[];
@@ -99,23 +101,25 @@ export type Intake = {
  */
 export function intake(events: unknown, problems: Problem[]): Intake {
   if (!Array.isArray(events)) {
-    const out: Intake = { entries: [], byId: new IdIndex(), voids: [], amends: [] };
+    const out: Intake = { entries: [], times: new Float64Array(0), byId: new IdIndex(), voids: [], amends: [] };
     problems.push({ code: 'malformed_event', eventId: null, message: 'the event log is not a list' });
     return out;
   }
   // Each id's entry, in the order of its first delivery (a preferred repeat takes its place).
   const byId = new IdIndex<LogEntry>(events.length);
-  const out: Intake = { entries: [], byId, voids: [], amends: [] };
+  const times = new Float64Array(events.length);
+  const out: Intake = { entries: [], times, byId, voids: [], amends: [] };
   const corrections: LogEntry[] = [];
   const conflicted = new Set<string>();
   for (const item of events) {
     const entry = toEntry(item);
     if (typeof entry === 'string') { problems.push({ code: 'malformed_event', eventId: null, message: entry }); continue; }
     const before = byId.add(entry);
-    if (before) {
+    if (!before) times[byId.size - 1] = entry.atMs;
+    else {
       if (keyOf(before) !== keyOf(entry)) conflicted.add(entry.id);
       if (preferred(before, entry) !== entry) continue;
-      byId.replace(entry);
+      times[byId.replace(entry)] = entry.atMs;
     }
     if (entry.kind === 'void' || entry.kind === 'amend') corrections.push(entry);
   }

@@ -14,6 +14,9 @@ export function scopeIntervals(timeline: TimelineEvent[]): ScopeInterval[] {
   return out;
 }
 
+/** The kinds that start the resection phase: only the first of them in the timeline is read. */
+export const RESECTION_START_KINDS: readonly string[] = ['marking', 'injection', 'incision', 'dissection'];
+
 type Mark = { atMs: number; id: string };
 const phase = (name: PhaseName, start: Mark, end: Mark | null): Phase => ({
   name, startMs: start.atMs, endMs: end?.atMs ?? null, minutes: end ? (end.atMs - start.atMs) / MINUTE_MS : null,
@@ -46,7 +49,7 @@ export function phases(timeline: TimelineEvent[], scopes: ScopeInterval[]): Phas
     const end = last.outMs !== null ? { atMs: last.outMs, id: last.outEventId! } : null;
     out.push(phase('total', { atMs: firstScope.inMs, id: firstScope.inEventId }, end));
   }
-  const resectionStart = first(timeline, (e) => e.kind === 'marking' || e.kind === 'injection' || e.kind === 'incision' || e.kind === 'dissection');
+  const resectionStart = first(timeline, (e) => RESECTION_START_KINDS.includes(e.kind));
   const resectionEnd = resectionStart ? first(timeline, (e) => e.kind === 'resection_complete', resectionStart.atMs) : first(timeline, (e) => e.kind === 'resection_complete');
   if (resectionStart) out.push(phase('resection', resectionStart, resectionEnd));
 

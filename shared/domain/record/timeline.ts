@@ -1,9 +1,7 @@
 import { applyCorrections } from './corrections.ts';
-import { check, compareLog, intake, type LogEntry } from './intake.ts';
-import { sortByKey } from './sort.ts';
+import { check, compareLog, intake } from './intake.ts';
+import { sortByKeys } from './sort.ts';
 import type { Problem, TimelineEvent, VoidedEvent } from './types.ts';
-
-const atMsOf = (e: LogEntry) => e.atMs;
 
 /** One shared, frozen empty list for the many events never amended (fewer allocations on long logs). */
 const NOT_AMENDED: readonly string[] = Object.freeze([]);
@@ -18,7 +16,7 @@ export type EffectiveTimeline = { timeline: TimelineEvent[]; voided: VoidedEvent
  */
 export function effectiveTimeline(events: unknown, problems: Problem[], onEvent?: (e: TimelineEvent) => void): EffectiveTimeline {
   const log = intake(events, problems);
-  const sorted = sortByKey(log.entries, atMsOf, compareLog);
+  const sorted = sortByKeys(log.entries, log.times, compareLog);
   const amendmentsApplied = applyCorrections(log, problems);
   const timeline: TimelineEvent[] = [];
   const voided: VoidedEvent[] = [];
