@@ -6,6 +6,7 @@ import { buttonClass } from '@/components/ui/button.tsx';
 import { useTheme } from '@/lib/theme.ts';
 import type { SyncStatus } from '@/sync/index.ts';
 import { useSyncEngine, useSyncStatusPart } from '@/sync/react.ts';
+import { useAfterPaint } from '../hooks/after-paint.ts';
 import { CaseClock, type ClockView } from './case-clock.tsx';
 import { ChecksStatus } from './checks-status.tsx';
 import { ConnectionStrip } from './connection-strip.tsx';
@@ -57,10 +58,12 @@ const sameConnection = (a: ConnectionView, b: ConnectionView) =>
 
 /**
  * The connection strip, subscribed to the sync status on its own: only a change of what it shows
- * redraws it (a tap going from saving to queued to sent changes none of it).
+ * redraws it (a tap going from saving to queued to sent changes none of it). A change is drawn in the
+ * frame after the one that shows a tap's count and row (a tap's "1 waiting" a frame later), so the strip
+ * never adds to that frame.
  */
 function LiveConnection({ onOpenRefused }: { onOpenRefused: () => void }) {
-  const view = useSyncStatusPart(connectionView, sameConnection);
+  const view = useAfterPaint(useSyncStatusPart(connectionView, sameConnection));
   return <ConnectionStrip {...view} onOpenRefused={onOpenRefused} />;
 }
 

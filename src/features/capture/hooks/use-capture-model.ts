@@ -90,12 +90,13 @@ export function useCaptureModel(snapshot: CaseSnapshot, opts: { offsetMs: number
   const corrections = useMemo(() => collectCorrections(live), [live]);
   const { device, authorName } = opts;
   // The rows are rebuilt only when the events change; a change of sync state only restamps the rows.
+  // One row more than is kept: the row a tap pushes off the end goes in the frame after the tap's own.
   const base = useMemo(
-    () => recentRows(shown, { limit: RECENT_LIMIT, device, authorName, corrections, stateOf: () => 'accepted' }),
+    () => recentRows(shown, { limit: RECENT_LIMIT + 1, device, authorName, corrections, stateOf: () => 'accepted' }),
     [shown, device, authorName, corrections],
   );
   const stamped = useRef(new Map<string, RecentRow>());
-  const rows = useMemo(() => {
+  const stampedAll = useMemo(() => {
     // Accepted events come first in the snapshot and this tablet's pending ones after them: only the
     // tail can hold a state other than 'accepted'.
     const states = new Map<string, TapState>();
@@ -111,6 +112,9 @@ export function useCaptureModel(snapshot: CaseSnapshot, opts: { offsetMs: number
     stamped.current = next;
     return out;
   }, [base, items]);
+  const newest = stampedAll[0]?.id ?? null;
+  const paintedNewest = useAfterPaint(newest);
+  const rows = useMemo(() => stampedAll.slice(0, newest === paintedNewest ? RECENT_LIMIT : RECENT_LIMIT + 1), [stampedAll, newest, paintedNewest]);
   const recordNow = useCallback(() => recordOf(input), [input]);
   return { events, record, recordNow, counts, clock, rows, tally: tallyRef };
 }
