@@ -67,11 +67,13 @@ function passes(idleGapMs: number) {
     gaps.add(e);
     const lists = ROUTES.get(e.kind);
     if (!lists) return;
-    if (RESECTION_START.has(e.kind)) {
-      if (resectionStarted) return;
-      resectionStarted = true;
+    for (const p of lists) {
+      if (p === 'phases' && RESECTION_START.has(e.kind)) {
+        if (resectionStarted) continue;
+        resectionStarted = true;
+      }
+      by[p].push(e);
     }
-    for (const p of lists) by[p].push(e);
   };
   return { by, bleeds, devices, counter, gaps, add };
 }
