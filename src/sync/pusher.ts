@@ -31,6 +31,8 @@ const byId = (a: Pending, b: Pending) => (a.event.id < b.event.id ? -1 : 1);
  */
 export class Pusher {
   pushing = false;
+  /** A pump was asked for while this one was running. */
+  private again = false;
   private failures = 0;
   private batchSize: number;
   private timer: ReturnType<typeof setTimeout> | undefined;
@@ -52,14 +54,21 @@ export class Pusher {
   }
 
   async pump(): Promise<void> {
-    if (this.pushing || this.stopped) return;
+    if (this.stopped) return;
+    // Asked while pushing (a tap's write committed, a reconnect): this pump goes round once more before
+    // it ends. Dropping the ask left a tap queued, unsent, until something else pumped.
+    if (this.pushing) { this.again = true; return; }
     this.pushing = true;
     try {
-      for (let batch = this.nextBatch(); batch.length && this.d.socket.connected; batch = this.nextBatch()) {
-        if (!(await this.push(batch))) { this.retryLater(); break; }
-        this.failures = 0;
-      }
-      await Promise.all(this.writes.splice(0));
+      let failed = false;
+      do {
+        this.again = false;
+        for (let batch = this.nextBatch(); batch.length && this.d.socket.connected; batch = this.nextBatch()) {
+          if (!(await this.push(batch))) { this.retryLater(); failed = true; break; }
+          this.failures = 0;
+        }
+        await Promise.all(this.writes.splice(0));
+      } while (this.again && !failed && !this.stopped);
     } catch (err) {
       // An IndexedDB failure while applying answers: what is not settled goes back to the queue.
       this.d.onError((err as Error).message);

@@ -109,4 +109,25 @@ describe('sending what the outbox holds', () => {
     expect(snap.loaded).toBe(true);
     expect(snap.items.map((i) => [i.event.kind, i.state, i.seq])).toEqual([['patient_in', 'accepted', 1], ['scope_in', 'accepted', 2]]);
   });
+
+  it('sends a tap that was saved while the previous push was still being written away, with nothing else to wake it', async () => {
+    server = await startTestSyncServer();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    // Hold the IndexedDB write of accepted events, so the pump that sent the first tap is still busy
+    // with it when the second tap is saved (white-box: the engine's own storage object).
+    const storage = (tablet as unknown as { storage: { storeAccepted: (...a: unknown[]) => Promise<void> } }).storage;
+    const write = storage.storeAccepted.bind(storage);
+    let release!: () => void;
+    const gate = new Promise<void>((r) => { release = r; });
+    let held = 0;
+    storage.storeAccepted = async (...a: unknown[]) => { held++; await gate; return write(...a); };
+
+    const first = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    await eventually(() => expect(held).toBe(1)); // acknowledged; its write waits
+    const second = await tablet.recordTap({ caseId, kind: 'marking', payload: {} });
+    release();
+    await eventually(() => expect(server!.log(caseId).map((e) => e.id)).toEqual([first.id, second.id]));
+    await eventually(() => expect(tablet.status.getSnapshot().waiting).toBe(0));
+  });
 });
