@@ -5,7 +5,7 @@ import type { Db } from '../db/client.ts';
 import { insertAudit } from '../modules/audit/queries.ts';
 import { caseAccess, isDenied, recordDenial, type AccessDenied } from '../modules/events/access.ts';
 import { announceRecorded } from '../modules/events/recorded.ts';
-import { eventsPage, recordEvents } from '../modules/events/service.ts';
+import { eventsPageWithStatus, recordEvents } from '../modules/events/service.ts';
 import {
   caseJoinSchema, caseLeaveSchema, caseRoom, clockPingSchema, eventsPushSchema, MAX_PUSH_BYTES, SyncMessages,
   type CaseJoinAck, type ClockPong, type EventsPushAck, type OkAck,
@@ -33,8 +33,9 @@ export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDe
     if (afterSeq === 0) {
       await insertAudit(db, { action: 'record.view', entityType: 'case', entityId: caseId, userId, unitId: access.unitId, ip: socket.handshake.address });
     }
-    const page = await eventsPage(db, caseId, afterSeq);
-    return { caseId, status: access.status, ...page };
+    // The status as of the page's lastSeq (read with it), not the one the access check read before.
+    const { status, ...page } = await eventsPageWithStatus(db, caseId, afterSeq);
+    return { caseId, status: status ?? access.status, ...page };
   }, small);
 
   handle(socket, SyncMessages.caseLeave, caseLeaveSchema, async ({ caseId }): Promise<OkAck> => {

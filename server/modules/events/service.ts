@@ -135,9 +135,22 @@ async function storeBatch(tx: Tx, caseId: string, checked: Checked[], recorders:
   return { results, stored: [...inserted.values()].sort((a, b) => a.seq - b.seq) };
 }
 
-/** One page of a case's events after `afterSeq`, with the case's last sequence. */
-export async function eventsPage(db: Tx, caseId: string, afterSeq: number, limit = EVENTS_PAGE_SIZE): Promise<EventsPage> {
-  const [rows, row] = await Promise.all([eventsAfter(db, caseId, afterSeq, limit), findCase(db, caseId)]);
+/**
+ * One page of a case's events after `afterSeq`, with the case's last sequence and its status as of that
+ * sequence. The events are read first and the case after: the case's row (its last sequence and status
+ * change together, in the push's UPDATE) is then at least as new as the page, so the status belongs to
+ * lastSeq. Read at once, a push committed between the two reads gave a join the status before the push
+ * with the last sequence after it, and the tablet kept a recording case as scheduled.
+ */
+export async function eventsPageWithStatus(db: Tx, caseId: string, afterSeq: number, limit = EVENTS_PAGE_SIZE): Promise<EventsPage & { status: CaseStatus | null }> {
+  const rows = await eventsAfter(db, caseId, afterSeq, limit);
+  const row = await findCase(db, caseId);
   const events = rows.slice(0, limit).map(rowToStored);
-  return { events, lastSeq: Math.max(row?.lastSeq ?? 0, events.at(-1)?.seq ?? 0), hasMore: rows.length > limit };
+  return { events, lastSeq: Math.max(row?.lastSeq ?? 0, events.at(-1)?.seq ?? 0), hasMore: rows.length > limit, status: (row?.status as CaseStatus | undefined) ?? null };
+}
+
+/** One page of a case's events after `afterSeq`, with the case's last sequence (the HTTP read). */
+export async function eventsPage(db: Tx, caseId: string, afterSeq: number, limit = EVENTS_PAGE_SIZE): Promise<EventsPage> {
+  const { status: _status, ...page } = await eventsPageWithStatus(db, caseId, afterSeq, limit);
+  return page;
 }
