@@ -1,9 +1,11 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cases, events, session } from '#server/db/schema/index.ts';
+import { caseAccess } from '#server/modules/events/access.ts';
+import { eventsPageWithStatus } from '#server/modules/events/service.ts';
 import { signIn } from './factories.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
-import { newCase, push, signedInTeam, startNode, stopAll, tablet, tap, type SignedInTeam } from './sync-helpers.ts';
+import { join, newCase, push, signedInTeam, startNode, stopAll, tablet, tap, type SignedInTeam } from './sync-helpers.ts';
 
 let t: TestContext;
 let url: string;
@@ -37,6 +39,16 @@ describe('pushing events over the socket', () => {
     expect(ack).toMatchObject({ results: batch.map((e, i) => ({ id: e.id, status: 'accepted', seq: i + 1 })) });
     expect(await seqsOf(c.caseId)).toEqual(batch.map((e, i) => ({ id: e.id, seq: i + 1 })));
     expect(await statusOf(c.caseId)).toEqual({ status: 'recording', lastSeq: 3 });
+  });
+
+  it('gives a join the case status as of its last sequence, not as the access check read it before a push', async () => {
+    const c = await caseWithTeam();
+    const s = await tablet(url, c.cookies.nurse);
+    const before = await caseAccess(t.db, c.members.nurse.id, c.caseId);
+    await push(s, c.caseId, [tap('patient_in', c.caseId, c.members.nurse.id)]);
+    expect(before).toMatchObject({ status: 'scheduled', lastSeq: 0 });
+    expect(await eventsPageWithStatus(t.db, c.caseId, 0)).toMatchObject({ status: 'recording', lastSeq: 1 });
+    expect(await join(s, c.caseId, 0)).toMatchObject({ status: 'recording', lastSeq: 1 });
   });
 
   it('answers a repeated delivery as duplicate with the sequence given before, and stores it once', async () => {
