@@ -1,7 +1,7 @@
 import type { BleedEpisode, CheckRecord, Counts, TimelineEvent, TimelineEventOf } from './types.ts';
 
 /** Sums of millilitres kept to a thousandth, so 0.1 + 0.2 reads 0.3. */
-const roundMl = (x: number) => Math.round(x * 1000) / 1000;
+export const roundMl = (x: number) => Math.round(x * 1000) / 1000;
 
 /** The case's counts, one event at a time; the bleed figures come from the episodes at `finish`. */
 export class Counter {

@@ -12,6 +12,9 @@ export type LiveCounts = {
   injectionMl: number;
 };
 
+/** The injected volume as the board shows it: to a tenth of a millilitre. */
+export const boardMl = (ml: number) => Math.round(ml * 10) / 10;
+
 /**
  * `offsetMs` is server minus tablet clock: the record's times are corrected (server clock), the ticking
  * timer reads the tablet's clock, so an open bleed's start is moved back onto the tablet's clock.
@@ -26,7 +29,7 @@ export function toLiveCounts(record: CaseRecord, offsetMs: number): LiveCounts {
     bleedsOpen: c.bleedsOpen,
     bleedsControlled: record.bleeds.filter((b) => b.controlledMs !== null).length,
     openBleedSinceMs: open ? open.startMs - offsetMs : null,
-    injectionMl: Math.round(c.injectionMl * 10) / 10,
+    injectionMl: boardMl(c.injectionMl),
   };
 }
 

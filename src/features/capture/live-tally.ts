@@ -1,7 +1,8 @@
 import { buildRecord } from '#shared/domain/record/index.ts';
+import { roundMl } from '#shared/domain/record/counts.ts';
 import { isEventKind, validatePayload } from '#shared/domain/record/intake.ts';
 import type { CaseRecord, RecordEventInput } from '#shared/domain/record/types.ts';
-import { latestOpenBleed, toLiveCounts, type LiveCounts } from './live-counts.ts';
+import { boardMl, latestOpenBleed, toLiveCounts, type LiveCounts } from './live-counts.ts';
 
 /**
  * The board's figures kept up to date tap by tap, without rebuilding the whole record on each one.
@@ -63,8 +64,6 @@ const comesAfter = (a: LogKey, b: LogKey) =>
 /** Kinds whose tap changes the board by a fixed step (see `step`); the others leave it as it is. */
 const REBUILD_KINDS = new Set(['bleed', 'haemostasis', 'void', 'amend']);
 
-const roundMl = (x: number) => Math.round(x * 1000) / 1000;
-const boardMl = (ml: number) => Math.round(roundMl(ml) * 10) / 10;
 
 /** A tally from the full record of `inputs`. */
 export function tallyFromRecord(inputs: readonly RecordEventInput[], record: CaseRecord): LiveTally {
@@ -109,7 +108,7 @@ function step(t: LiveTally, e: RecordEventInput): LiveTally | null {
   let ml = t.ml;
   if (e.kind === 'clip_fired') { if (p.outcome === 'deployed') c.clipsDeployed++; else c.clipsMisfired++; }
   else if (e.kind === 'loop_placed') c.loopsPlaced++;
-  else if (e.kind === 'injection') { ml += (p.volumeMl as number | undefined) ?? 0; c.injectionMl = boardMl(ml); }
+  else if (e.kind === 'injection') { ml += (p.volumeMl as number | undefined) ?? 0; c.injectionMl = boardMl(roundMl(ml)); }
   return { ...t, counts: c, ml, last: key };
 }
 
