@@ -32,6 +32,8 @@ export type LiveTally = {
    */
   readonly ids: Map<string, RecordEventInput>;
   readonly tied: Set<number>;
+  /** Ids delivered more than once: which delivery the reducer keeps can change with a server copy. */
+  readonly repeated: Set<string>;
   readonly named: Set<string>;
   readonly times: Map<number, RecordEventInput>;
 };
@@ -50,7 +52,7 @@ const seqOf = (e: RecordEventInput) => (typeof e.seq === 'number' && Number.isFi
  * of the same corrected time, so it is taken as the same event only when no other event has that time.
  */
 function sameEventForTally(t: LiveTally, a: RecordEventInput, b: RecordEventInput): boolean {
-  return a.id === b.id && a.kind === b.kind && a.atMs === b.atMs && !t.tied.has(a.atMs)
+  return a.id === b.id && a.kind === b.kind && a.atMs === b.atMs && !t.tied.has(a.atMs) && !t.repeated.has(a.id)
     && (a.author ?? null) === (b.author ?? null) && (a.device ?? null) === (b.device ?? null)
     && JSON.stringify(a.payload) === JSON.stringify(b.payload);
 }
@@ -73,8 +75,10 @@ export function tallyFromRecord(inputs: readonly RecordEventInput[], record: Cas
   const ids = new Map<string, RecordEventInput>();
   const tied = new Set<number>();
   const named = new Set<string>();
+  const repeated = new Set<string>();
   const times = new Map<number, RecordEventInput>();
   for (const e of inputs) {
+    if (ids.has(e.id)) repeated.add(e.id);
     ids.set(e.id, e);
     seeTime(times, tied, e);
     if (e.kind === 'void' || e.kind === 'amend') {
@@ -84,7 +88,7 @@ export function tallyFromRecord(inputs: readonly RecordEventInput[], record: Cas
   }
   const last = record.timeline.at(-1);
   return {
-    inputs, ml, ids, tied, named, times,
+    inputs, ml, ids, tied, named, repeated, times,
     openBleed: open ? { bleedId: open.bleedId, startMs: open.startMs } : null,
     last: last ? { atMs: last.atMs, seq: last.seq, id: last.id } : null,
     counts: toLiveCounts(record, 0), // offset 0: the open bleed's start stays on the corrected clock
@@ -94,7 +98,8 @@ export function tallyFromRecord(inputs: readonly RecordEventInput[], record: Cas
 /** The tally extended by one appended event, or null when that event needs the record rebuilt. */
 function step(t: LiveTally, e: RecordEventInput): LiveTally | null {
   const seen = t.ids.get(e.id);
-  if (REBUILD_KINDS.has(e.kind) || !isEventKind(e.kind) || (seen && seen !== e) || t.named.has(e.id)) return null;
+  // An id seen before (another delivery, or the same object again) is a repeat: the reducer decides which counts.
+  if (REBUILD_KINDS.has(e.kind) || !isEventKind(e.kind) || seen !== undefined || t.named.has(e.id)) return null;
   if (typeof e.id !== 'string' || e.id.length === 0 || e.id.length > 64 || !Number.isFinite(e.atMs)) return null;
   const checked = validatePayload(e.kind, e.payload === undefined ? {} : e.payload);
   t.ids.set(e.id, e);
