@@ -54,6 +54,8 @@ export class SyncEngine {
   private lastError: string | null = null;
   private lastWrite: WriteReceipt | null = null;
   private stopped = false;
+  /** Refused events a person is fixing or discarding right now (one decision each). */
+  private readonly settling = new Set<string>();
   readonly ready: Promise<void>;
   readonly status: Observable<SyncStatus>;
 
@@ -114,15 +116,25 @@ export class SyncEngine {
   }
 
   get deviceId(): string { return this.device; }
-  /** After another user signs in on this tablet: their id goes on the next taps. */
-  setAuthor(userId: string): void { this.author = userId; }
+  /**
+   * Another user signed in on this page: their taps carry their id, and the socket connects again, since
+   * a socket keeps the session of its handshake (the last user's, ended by their sign-out).
+   */
+  setAuthor(userId: string): void {
+    if (userId === this.author) return;
+    this.author = userId;
+    this.reconnect();
+  }
 
   /**
-   * Connect again after the server refused the handshake (no session yet, or it ended): Socket.IO does
-   * not retry a refusal by itself. Call it after signing in.
+   * A new handshake, with the session signed in now: after the server refused one (no session yet, or it
+   * ended; Socket.IO does not retry a refusal by itself), or after another sign-in, when a connected
+   * socket still holds the last user's session. Pushes in flight are sent again (answered 'duplicate').
    */
   reconnect(): void {
-    if (!this.stopped && !this.socket.connected) this.socket.connect();
+    if (this.stopped) return;
+    if (this.socket.connected) this.socket.disconnect();
+    this.socket.connect();
   }
 
   /**
@@ -181,28 +193,34 @@ export class SyncEngine {
    */
   async discardRefused(id: string, why: string): Promise<void> {
     const p = this.refusedEntry(id);
-    let recordedAs: string | null = null;
-    if (!p.discardOf) {
-      const remark = await this.tap({ caseId: p.event.caseId, kind: 'remark', payload: { text: discardRemarkText(p.event, p.reason, why) } }, id);
-      recordedAs = remark.id;
-    }
-    await this.storage.appendAudit({ action: 'discarded', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs });
-    await this.drop(p.event);
+    try {
+      let recordedAs: string | null = null;
+      if (!p.discardOf) {
+        const remark = await this.tap({ caseId: p.event.caseId, kind: 'remark', payload: { text: discardRemarkText(p.event, p.reason, why) } }, id);
+        recordedAs = remark.id;
+      }
+      await this.storage.appendAudit({ action: 'discarded', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs });
+      await this.drop(p.event);
+    } finally { this.settling.delete(id); }
   }
 
   /** Fix a refused event: send it again as a new event (new id) with the changes; the old one is dropped and audited. */
   async resubmitRefused(id: string, changes: ResubmitChanges, why = 'Corrected and sent again'): Promise<NewEvent> {
     const p = this.refusedEntry(id);
-    const event = rebuildEvent(p.event, changes, { id: uuidv7(), author: this.author });
-    await this.enqueue(event);
-    await this.storage.appendAudit({ action: 'replaced', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs: event.id });
-    await this.drop(p.event);
-    return event;
+    try {
+      const event = rebuildEvent(p.event, changes, { id: uuidv7(), author: this.author });
+      await this.enqueue(event);
+      await this.storage.appendAudit({ action: 'replaced', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs: event.id });
+      await this.drop(p.event);
+      return event;
+    } finally { this.settling.delete(id); }
   }
 
   private refusedEntry(id: string): Pending {
     const p = this.entries.get(id);
     if (!p || p.live !== 'refused') throw new Error(`No refused event ${id} on this tablet`);
+    if (this.settling.has(id)) throw new Error(`The refused event ${id} is already being fixed or discarded`);
+    this.settling.add(id);
     return p;
   }
 

@@ -77,4 +77,34 @@ describe('refused events', () => {
     const ok = await tablet.recordTap({ caseId, kind: 'scope_out', payload: {} });
     await expect(tablet.discardRefused(ok.id, 'no reason')).rejects.toThrow(/No refused event/);
   });
+
+  it('are fixed once when "send again" is tapped twice in a row', async () => {
+    server = await refuseDoseless();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await tablet.openCase(caseId);
+    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'midazolam' } });
+    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+
+    const fix = { payload: { drug: 'midazolam', dose: 2, unit: 'mg', route: 'IV' } };
+    const [first, second] = await Promise.allSettled([tablet.resubmitRefused(bad.id, fix), tablet.resubmitRefused(bad.id, fix)]);
+    expect(first.status).toBe('fulfilled');
+    expect(second).toMatchObject({ status: 'rejected', reason: expect.objectContaining({ message: expect.stringContaining('already being fixed') }) });
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
+    expect(server.log(caseId).filter((e) => e.kind === 'medication')).toHaveLength(1);
+    expect((await tablet.listAudit()).filter((a) => a.event.id === bad.id)).toHaveLength(1);
+  });
+
+  it('are discarded with one remark when "discard" is tapped twice in a row', async () => {
+    server = await refuseDoseless();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await tablet.openCase(caseId);
+    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'fentanyl' } });
+    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+
+    await Promise.allSettled([tablet.discardRefused(bad.id, 'Charted on paper'), tablet.discardRefused(bad.id, 'Charted on paper')]);
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
+    expect(server.log(caseId).filter((e) => e.kind === 'remark')).toHaveLength(1);
+  });
 });

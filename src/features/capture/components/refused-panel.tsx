@@ -43,7 +43,13 @@ function RefusedRow({ item, onResubmit, onDiscard, ItemInput }: { item: RefusedI
   const [values, setValues] = useState<Values>(() => ({ ...payload }));
   const [why, setWhy] = useState('');
   const [error, setError] = useState<string | null>(null);
-  const run = (p: Promise<unknown>) => p.then(() => setError(null), (err: unknown) => setError(err instanceof Error ? err.message : String(err)));
+  // One decision at a time: a second tap while the first is being written would not record it twice
+  // (the engine refuses it), but the buttons say so by being off.
+  const [busy, setBusy] = useState(false);
+  const run = (p: Promise<unknown>) => {
+    setBusy(true);
+    return p.then(() => setError(null), (err: unknown) => setError(err instanceof Error ? err.message : String(err))).finally(() => setBusy(false));
+  };
   const fix = () => {
     // Fields the sheet does not show (a clip's outcome, a check's items) are kept as they were.
     const r = createPayload(event.kind, fields, payload, values);
@@ -61,9 +67,9 @@ function RefusedRow({ item, onResubmit, onDiscard, ItemInput }: { item: RefusedI
       {error && <p role="alert" className="font-bold text-danger">{error}</p>}
       <div className="flex flex-wrap gap-2">
         {mode !== 'fix' && <Button onClick={() => setMode('fix')}>Fix…</Button>}
-        {mode === 'fix' && <Button variant="primary" onClick={fix}>Send again</Button>}
+        {mode === 'fix' && <Button variant="primary" disabled={busy} onClick={fix}>Send again</Button>}
         {mode !== 'discard' && <Button variant="danger" onClick={() => setMode('discard')}>Discard…</Button>}
-        {mode === 'discard' && <Button variant="danger" disabled={!why.trim()} onClick={() => void run(onDiscard(item.id, why.trim()))}>Discard, recording why</Button>}
+        {mode === 'discard' && <Button variant="danger" disabled={busy || !why.trim()} onClick={() => void run(onDiscard(item.id, why.trim()))}>Discard, recording why</Button>}
         {mode !== 'view' && <Button variant="quiet" onClick={() => setMode('view')}>Back</Button>}
       </div>
     </article>
