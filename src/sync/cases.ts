@@ -39,6 +39,8 @@ export class CaseRegistry {
   private readonly cases = new Map<string, CaseState>();
   private readonly views = new Map<string, Observable<CaseSnapshot>>();
   private readonly joining = new Set<string>();
+  /** Joins asked for while one was in flight: run once more when it ends. */
+  private readonly rejoin = new Set<string>();
 
   constructor(private readonly d: Deps) {}
 
@@ -90,7 +92,7 @@ export class CaseRegistry {
 
   /** Join a case's room and read every page after the contiguous sequence held. */
   async join(caseId: string): Promise<void> {
-    if (this.joining.has(caseId)) return;
+    if (this.joining.has(caseId)) { this.rejoin.add(caseId); return; }
     this.joining.add(caseId);
     const c = this.state(caseId);
     try {
@@ -108,6 +110,7 @@ export class CaseRegistry {
       this.d.onError((err as Error).message); // unanswered: the next connect joins again
     } finally {
       this.joining.delete(caseId);
+      if (this.rejoin.delete(caseId) && c.refs > 0 && this.d.socket.connected) void this.join(caseId);
     }
   }
 
@@ -124,8 +127,9 @@ export class CaseRegistry {
   /** Take accepted events into the case and the IndexedDB cache; their outbox entries are done. */
   async accept(caseId: string, events: readonly StoredEvent[]): Promise<void> {
     const added = this.state(caseId).absorb(events);
-    if (!added.length) return;
-    const done = added.filter((e) => this.d.entries.delete(e.id)).map((e) => e.id);
+    // Every held event settles its outbox entry, also one the case already held (read from the cache).
+    const done = events.filter((e) => e.caseId === caseId && this.d.entries.delete(e.id)).map((e) => e.id);
+    if (!added.length && !done.length) return;
     this.d.changed(caseId);
     // One transaction: the cache rows and the outbox removals land together, or neither does (then the
     // events are sent again and answered 'duplicate': never lost).

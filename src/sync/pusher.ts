@@ -60,15 +60,17 @@ export class Pusher {
     if (this.pushing) { this.again = true; return; }
     this.pushing = true;
     try {
-      let failed = false;
+      // A case whose push failed waits for the back-off; the other cases' taps still go now, also those
+      // tapped while this pump runs.
+      const failing = new Set<string>();
       do {
         this.again = false;
-        for (let batch = this.nextBatch(); batch.length && this.d.socket.connected; batch = this.nextBatch()) {
-          if (!(await this.push(batch))) { this.retryLater(); failed = true; break; }
-          this.failures = 0;
+        for (let batch = this.nextBatch(failing); batch.length && this.d.socket.connected; batch = this.nextBatch(failing)) {
+          if (!(await this.push(batch))) failing.add(batch[0]!.event.caseId);
         }
         await Promise.all(this.writes.splice(0));
-      } while (this.again && !failed && !this.stopped);
+      } while (this.again && !this.stopped);
+      if (failing.size) this.retryLater(); else this.failures = 0;
     } catch (err) {
       // An IndexedDB failure while applying answers: what is not settled goes back to the queue.
       this.d.onError((err as Error).message);
@@ -81,8 +83,8 @@ export class Pusher {
   }
 
   /** The oldest queued events of one case, within the count and size limits of one push. */
-  private nextBatch(): Pending[] {
-    const queued = [...this.d.entries.values()].filter((p) => p.live === 'queued').sort(byId);
+  private nextBatch(skip: ReadonlySet<string>): Pending[] {
+    const queued = [...this.d.entries.values()].filter((p) => p.live === 'queued' && !skip.has(p.event.caseId)).sort(byId);
     const caseId = queued[0]?.event.caseId;
     const batch: Pending[] = [];
     let bytes = 256; // the envelope of the message

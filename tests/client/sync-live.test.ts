@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { SyncMessages } from '#shared/contracts/sync.ts';
+import { caseRoom, SyncMessages } from '#shared/contracts/sync.ts';
 import { buildEvent } from '../factories/events.ts';
 import { eventually, newCaseId, newDbName, startTablet, stopTablets } from './sync-helpers.ts';
 import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
@@ -61,5 +61,50 @@ describe('live sync between tablets', () => {
     // On loopback the round trip is a few ms, so θ is within δ/2 of the 30 000 ms shift (RFC 5905 §8).
     expect(Math.abs(tap.offsetMs - 30_000)).toBeLessThanOrEqual((tap.offsetUncertaintyMs ?? 0) + 1);
     expect(tap.offsetUncertaintyMs).toBeLessThan(100);
+  });
+
+  it('stays in the case\'s room when the screen leaves the case and comes back while the join is on its way', async () => {
+    server = await startTestSyncServer();
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+    // When the server takes the first join (its answer not yet back), the screen closes the case and
+    // opens it again: the server then sees join, leave, and the tablet must join once more.
+    let reopened = false;
+    for (const s of server.io.sockets.sockets.values()) {
+      s.on(SyncMessages.caseJoin, () => {
+        if (reopened) return;
+        reopened = true;
+        tablet.closeCase(caseId);
+        void tablet.openCase(caseId);
+      });
+    }
+    await tablet.openCase(caseId);
+    await eventually(() => expect(reopened).toBe(true));
+    await eventually(async () => expect((await server.io.in(caseRoom(caseId)).fetchSockets()).length).toBe(1));
+
+    const other = buildEvent('bleed', { caseId, device: 'tablet-other', payload: { severity: 'ooze' } });
+    server.storeFromElsewhere(caseId, [other]);
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => i.id)).toContain(other.id));
+  });
+
+  it('sends the taps of a user who signs in after another signed out on the same page', async () => {
+    server = await startTestSyncServer();
+    // As the server does: a socket keeps the session of its handshake, and a push over a socket whose
+    // session has ended is answered 'unauthorized' (here before the test server's own handler, whose
+    // later answer is then ignored). A new handshake carries the session signed in now.
+    const ended = new Set<string>();
+    server.io.on('connection', (s) => s.prependListener(SyncMessages.eventsPush, (_msg: unknown, ack: (a: unknown) => void) => {
+      if (ended.has(s.id)) ack({ error: 'Your session has ended; sign in again', code: 'unauthorized' });
+    }));
+    const caseId = newCaseId();
+    const tablet = startTablet(server.url, { dbName: newDbName() });
+    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+
+    for (const s of server.io.sockets.sockets.values()) ended.add(s.id); // the first nurse signed out
+    tablet.setAuthor('user-test-nurse-two'); // the second signed in
+    const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    expect(tap.author).toBe('user-test-nurse-two');
   });
 });

@@ -1,4 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
+import { SyncMessages } from '#shared/contracts/sync.ts';
 import type { TapState } from '@/sync/index.ts';
 import { eventually, newCaseId, newDbName, OFFLINE_URL, readOutboxRaw, startTablet, stopTablets } from './sync-helpers.ts';
 import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
@@ -129,5 +130,48 @@ describe('sending what the outbox holds', () => {
     release();
     await eventually(() => expect(server!.log(caseId).map((e) => e.id)).toEqual([first.id, second.id]));
     await eventually(() => expect(tablet.status.getSnapshot().waiting).toBe(0));
+  });
+
+  it('sends the taps of other cases while one case\'s pushes keep failing on the server', async () => {
+    server = await startTestSyncServer();
+    const stuck = newCaseId();
+    const other = newCaseId();
+    // Every push of `stuck` is answered 'internal' (a fault on the server), before the test server's own
+    // handler, whose later answer is then ignored.
+    server.io.on('connection', (s) => s.prependListener(SyncMessages.eventsPush, (msg: { caseId: string }, ack: (a: unknown) => void) => {
+      if (msg.caseId === stuck) ack({ error: 'Something went wrong on the server; it has been logged', code: 'internal' });
+    }));
+    const dbName = newDbName();
+    const tablet = startTablet(server.url, { dbName });
+    const held = await tablet.recordTap({ caseId: stuck, kind: 'remark', payload: { text: 'first' } });
+    const tap = await tablet.recordTap({ caseId: other, kind: 'scope_in', payload: {} });
+
+    await eventually(() => expect(server!.log(other).map((e) => e.id)).toEqual([tap.id]), 3_000);
+    // The failing case's tap is kept and counted as waiting, to be sent again after the back-off.
+    expect(tablet.status.getSnapshot().waiting).toBe(1);
+    expect((await readOutboxRaw(dbName)).map((r) => r.event.id)).toEqual([held.id]);
+  });
+
+  it('settles an event answered for again when the case already holds it (the app open twice on one tablet)', async () => {
+    server = await startTestSyncServer({ dropAcks: 1 });
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const offline = startTablet(OFFLINE_URL, { dbName });
+    const x = await offline.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    await offline.stop();
+
+    // Two pages over one IndexedDB database: b's push is stored but its answer is lost; a sends it too,
+    // is answered 'duplicate', keeps it in the case's cache and clears the outbox.
+    const b = startTablet(server.url, { dbName, ackTimeoutMs: 1_500 });
+    await eventually(() => expect(server!.pushes.flat()).toEqual([x.id]));
+    const a = startTablet(server.url, { dbName });
+    await eventually(async () => expect(await readOutboxRaw(dbName)).toEqual([]));
+    await a.stop();
+
+    await b.openCase(caseId); // reads x from the cache, then b sends it again: 'duplicate'
+    await eventually(() => expect(server!.pushes.flat()).toEqual([x.id, x.id, x.id]), 5_000);
+    expect(server.log(caseId)).toHaveLength(1);
+    await eventually(() => expect(b.status.getSnapshot().waiting).toBe(0));
+    expect(b.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[x.id, 'accepted']]);
   });
 });
