@@ -88,4 +88,27 @@ describe('a bleed episode', () => {
     expect(record.bleeds).toEqual([]);
     expect(record.counts.haemostasisAttempts).toBe(0);
   });
+
+  it('is not closed by a haemostasis that names another bleed, already controlled (a second tablet\'s tap for it)', () => {
+    const log = scopedCase();
+    const a = log.tap(10, 'bleed', { severity: 'ooze' });
+    const b = log.tap(11, 'bleed', { severity: 'spurting' });
+    log.tap(12, 'haemostasis', { method: 'clip', achieved: true, bleedId: a });
+    const again = log.tap(12.1, 'haemostasis', { method: 'clip', achieved: true, bleedId: a });
+    log.close();
+    const record = buildRecord(log.events);
+    expect(record.bleeds.find((x) => x.bleedId === a)).toMatchObject({ attempts: 1, secondsToHaemostasis: 120 });
+    expect(record.bleeds.find((x) => x.bleedId === b)).toMatchObject({ controlledMs: null, controlledBy: null, attempts: 0, openAtScopeOut: true });
+    expect(record.flags).toEqual([expect.objectContaining({ code: 'bleed_open_at_scope_out', ref: b })]);
+    expect(record.problems).toEqual([expect.objectContaining({ code: 'unknown_bleed', eventId: again, message: expect.stringContaining('already controlled') })]);
+  });
+
+  it('reports a haemostasis that names no bleed on the record while none is open, and links it to none', () => {
+    const log = scopedCase();
+    const h = log.tap(11, 'haemostasis', { achieved: true, bleedId: uuidv7() });
+    log.close();
+    const record = buildRecord(log.events);
+    expect(record.bleeds).toEqual([]);
+    expect(record.problems).toEqual([expect.objectContaining({ code: 'unknown_bleed', eventId: h, message: expect.stringContaining('linked to none') })]);
+  });
 });

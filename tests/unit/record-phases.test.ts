@@ -113,6 +113,20 @@ describe('the retrieval phase', () => {
     log.close();
     expect(phase(log.events, 'retrieval')).toBeUndefined();
   });
+
+  it('runs from the resection complete when every resection mark came after it (an injection for a bleed after a cold snare)', () => {
+    const log = scopedCase(); // scope in at 0, out at 60
+    log.tap(20, 'resection_complete', { enBloc: true });
+    const bleed = log.tap(21, 'bleed', { severity: 'ooze' });
+    log.tap(22, 'injection', { agent: 'adrenaline', volumeMl: 2 });
+    log.tap(23, 'haemostasis', { method: 'coagulation_forceps', achieved: true, bleedId: bleed });
+    log.tap(30, 'specimen_retrieved', { method: 'net', longMm: 20, shortMm: 15 });
+    log.close();
+    const record = buildRecord(log.events);
+    // The resection's start was not tapped: it is left out, not shown as still running.
+    expect(record.phases.find((p) => p.name === 'resection')).toBeUndefined();
+    expect(record.phases.find((p) => p.name === 'retrieval')).toMatchObject({ minutes: 10 });
+  });
 });
 
 describe('idle gaps', () => {

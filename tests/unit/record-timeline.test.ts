@@ -44,6 +44,16 @@ describe('the effective timeline', () => {
     expect(toRecordInput(e)).toMatchObject({ atMs: Date.parse('2025-03-04T08:00:01.500Z'), seq: null });
     expect(toRecordInput({ ...e, seq: 7, receivedAt: '2025-03-04T08:00:02.000Z' }).seq).toBe(7);
   });
+
+  it('keeps the same delivery of a repeat, whatever the order, when only its author or device differs, and says so', () => {
+    const log = caseLog();
+    const id = log.tap(0, 'scope_in', {}, { seq: null });
+    const first = log.events[0]!;
+    const other = { ...first, author: 'nurse-2' };
+    const one = buildRecord([first, other]);
+    expect(buildRecord([other, first])).toEqual(one);
+    expect(one.problems).toEqual([expect.objectContaining({ code: 'duplicate_conflict', eventId: id })]);
+  });
 });
 
 describe('voids', () => {

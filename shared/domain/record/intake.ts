@@ -71,7 +71,9 @@ export function check(entry: LogEntry): void {
   else { entry.status = 'invalid_payload'; entry.issue = describeIssues(parsed.error); }
 }
 
-const keyOf = (e: LogEntry) => `${e.kind}\u0000${e.atMs}\u0000${stableJson(e.raw)}`;
+// Everything a delivery says of its event (but its seq, which the server adds): two deliveries that differ
+// in any of it conflict, and which one stands must not depend on the order they came in.
+const keyOf = (e: LogEntry) => `${e.kind}\u0000${e.atMs}\u0000${e.author}\u0000${e.device}\u0000${stableJson(e.raw)}`;
 
 /** Which of two deliveries of one id stands: the stored one (lowest seq), then the earlier, then by content. */
 function preferred(a: LogEntry, b: LogEntry): LogEntry {

@@ -32,7 +32,8 @@ const earliest = (...marks: (Mark | null)[]): Mark | null =>
 /**
  * The phases of the case, each from its first start mark to the first end mark at or after it:
  * - total: first scope in → the last scope out (open while the scope is in);
- * - resection: first marking, injection, incision or dissection → resection complete;
+ * - resection: first marking, injection, incision or dissection → resection complete (left out when
+ *   every such mark comes after the resection complete: its start was not tapped);
  * - closure: the earliest of closure start, a deployed closure clip or a loop placed (clips and loops
  *   counted only once the resection is complete, when it is) → closure complete;
  * - retrieval: from the resection's end — or, if the scope came out and went back in after it, from that
@@ -49,8 +50,14 @@ export function phases(timeline: TimelineEvent[], scopes: ScopeInterval[]): Phas
     const end = last.outMs !== null ? { atMs: last.outMs, id: last.outEventId! } : null;
     out.push(phase('total', { atMs: firstScope.inMs, id: firstScope.inEventId }, end));
   }
-  const resectionStart = first(timeline, (e) => RESECTION_START_KINDS.includes(e.kind));
-  const resectionEnd = resectionStart ? first(timeline, (e) => e.kind === 'resection_complete', resectionStart.atMs) : first(timeline, (e) => e.kind === 'resection_complete');
+  let resectionStart = first(timeline, (e) => RESECTION_START_KINDS.includes(e.kind));
+  let resectionEnd = resectionStart ? first(timeline, (e) => e.kind === 'resection_complete', resectionStart.atMs) : first(timeline, (e) => e.kind === 'resection_complete');
+  // Every start mark after the resection's end (an injection for a bleed after a cold snare, say): none
+  // of them started it, so the resection's start is unknown, and it is over.
+  if (resectionStart && !resectionEnd) {
+    resectionEnd = first(timeline, (e) => e.kind === 'resection_complete');
+    if (resectionEnd) resectionStart = null;
+  }
   if (resectionStart) out.push(phase('resection', resectionStart, resectionEnd));
 
   const afterResection = resectionEnd?.atMs ?? -Infinity;
