@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { v7 as uuidv7 } from 'uuid';
 import { buildRecord } from '#shared/domain/record/index.ts';
-import { scopedCase } from './record-factories.ts';
+import { minutes, scopedCase } from './record-factories.ts';
 
 // Episode rules are PRODUCT.md's ("Bleed episodes") as the reducer documents them; times worked by hand.
 
@@ -110,5 +110,30 @@ describe('a bleed episode', () => {
     const record = buildRecord(log.events);
     expect(record.bleeds).toEqual([]);
     expect(record.problems).toEqual([expect.objectContaining({ code: 'unknown_bleed', eventId: h, message: expect.stringContaining('linked to none') })]);
+  });
+
+  it('is closed by the haemostasis that names it when that tap sorts a moment before the bleed (two tablets\' clocks)', () => {
+    const log = scopedCase();
+    const older = log.tap(10, 'bleed', { severity: 'ooze' });
+    const named = log.tap(12, 'bleed', { severity: 'spurting' }, { author: 'nurse-2' });
+    const h = log.tap(11.995, 'haemostasis', { method: 'clip', achieved: true, bleedId: named }); // 300 ms earlier, corrected
+    log.close();
+    const record = buildRecord(log.events);
+    expect(record.bleeds.find((b) => b.bleedId === named)).toMatchObject({ controlledBy: h, controlledMs: minutes(12), secondsToHaemostasis: 0, attempts: 1, methods: ['clip'] });
+    expect(record.bleeds.find((b) => b.bleedId === older)).toMatchObject({ controlledMs: null, attempts: 0, openAtScopeOut: true });
+    expect(record.flags.filter((f) => f.code === 'bleed_open_at_scope_out').map((f) => f.ref)).toEqual([older]);
+    expect(record.problems).toEqual([expect.objectContaining({ code: 'unknown_bleed', eventId: h, message: expect.stringContaining('recorded after it') })]);
+  });
+
+  it('is not closed by a haemostasis naming a bleed that is voided, which goes to the open bleed and is reported', () => {
+    const log = scopedCase();
+    const open = log.tap(10, 'bleed', {});
+    const wrong = log.tap(12, 'bleed', {});
+    log.tap(12.5, 'void', { targetId: wrong, reason: 'tapped in error' });
+    const h = log.tap(11, 'haemostasis', { achieved: true, bleedId: wrong });
+    log.close();
+    const record = buildRecord(log.events);
+    expect(record.bleeds.map((b) => [b.bleedId, b.controlledBy])).toEqual([[open, h]]);
+    expect(record.problems).toEqual([expect.objectContaining({ code: 'unknown_bleed', eventId: h, message: expect.stringContaining('no bleed on the record') })]);
   });
 });

@@ -88,7 +88,7 @@ export function buildRecord(events: readonly RecordEventInput[] | unknown, optio
   const idleGapMs = typeof options.idleGapMs === 'number' && options.idleGapMs >= 0 ? options.idleGapMs : DEFAULT_IDLE_GAP_MS;
   try {
     const { by, bleeds: bleedPass, devices: devicePass, counter, gaps, add } = passes(idleGapMs);
-    const { timeline, voided, amendmentsApplied } = effectiveTimeline(events, problems, add);
+    const { timeline, voided, amendmentsApplied } = effectiveTimeline(events, problems, { onEvent: add, onCorrected: (kindOf) => bleedPass.lookAhead(kindOf) });
     const scopes = scopeIntervals(by.scopes);
     const phaseList = phases(by.phases, scopes);
     const bleeds = bleedPass.finish(scopes, problems);
