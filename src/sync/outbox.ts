@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { newEventSchema, type NewEvent } from '#shared/schemas/events.ts';
+import { eventEnvelopeSchema, newEventSchema, type NewEvent } from '#shared/schemas/events.ts';
 
 const newEvent = newEventSchema as unknown as z.ZodType<NewEvent>;
 
@@ -24,6 +24,26 @@ export const outboxEntrySchema = z.object({
   discardOf: z.string().nullable(),
 });
 export type OutboxEntry = z.infer<typeof outboxEntrySchema>;
+
+/**
+ * An outbox row that no longer passes `outboxEntrySchema` (written by an earlier version whose payload
+ * rules were looser, say), taken back as a refused entry with the reason, so that a person fixes or
+ * discards it: never sent as it is, never hidden. Null when even its envelope cannot be read (such a row
+ * is left in IndexedDB untouched).
+ */
+export function keptOutboxEntry(row: unknown, error: z.ZodError): OutboxEntry | null {
+  const r = (typeof row === 'object' && row !== null ? row : {}) as Record<string, unknown>;
+  const event = eventEnvelopeSchema.safeParse(r.event);
+  if (!event.success) return null;
+  const issues = error.issues.slice(0, 3).map((i) => `${i.path.slice(1).join('.') || 'event'}: ${i.message}`).join('; ');
+  return {
+    event: event.data as NewEvent,
+    state: 'refused',
+    reason: `Kept on this tablet, but this version of Ledgerline does not take it as it is (${issues}); fix or discard it`,
+    attempts: typeof r.attempts === 'number' && Number.isInteger(r.attempts) && r.attempts >= 0 ? r.attempts : 0,
+    discardOf: typeof r.discardOf === 'string' ? r.discardOf : null,
+  };
+}
 
 /** States a tap goes through on the screen. */
 export type TapState = 'saving' | 'queued' | 'sent' | 'accepted' | 'refused';

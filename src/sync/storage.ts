@@ -1,6 +1,6 @@
 import { del, get, promisifyRequest, set, type UseStore } from 'idb-keyval';
 import type { StoredEvent } from '#shared/schemas/events.ts';
-import { outboxEntrySchema, type OutboxEntry, type AuditEntry } from './outbox.ts';
+import { keptOutboxEntry, outboxEntrySchema, type OutboxEntry, type AuditEntry } from './outbox.ts';
 
 /**
  * What the tablet keeps in IndexedDB (one database, default name "ledgerline"):
@@ -69,10 +69,19 @@ export function openSyncStorage(dbName = 'ledgerline', now: () => number = () =>
       return getDb().then(write);
     },
     deleteOutbox: (id: string) => del(id, outbox),
-    /** Every outbox entry, oldest first (UUIDv7 keys sort by creation time). Unreadable rows are skipped, never deleted. */
+    /**
+     * Every outbox entry, oldest first (UUIDv7 keys sort by creation time). A row this version no longer
+     * takes as it is comes back refused, with the reason (`keptOutboxEntry`); one whose envelope cannot be
+     * read is skipped. None is ever deleted here.
+     */
     async listOutbox(): Promise<OutboxEntry[]> {
       const rows = await outbox('readonly', (s) => promisifyRequest(s.getAll()));
-      return rows.flatMap((r) => { const p = outboxEntrySchema.safeParse(r); return p.success ? [p.data] : []; });
+      return rows.flatMap((r) => {
+        const p = outboxEntrySchema.safeParse(r);
+        if (p.success) return [p.data];
+        const kept = keptOutboxEntry(r, p.error);
+        return kept ? [kept] : [];
+      });
     },
     /**
      * Accepted events into the cache and, in the same transaction, their outbox rows out: both or

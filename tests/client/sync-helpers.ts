@@ -43,3 +43,29 @@ export async function readOutboxRaw(dbName: string): Promise<{ state: string; ev
     db.close();
   }
 }
+
+/** Change the outbox rows in IndexedDB directly (what an earlier version of the app may have left). */
+export async function rewriteOutboxRaw(dbName: string, change: (row: Record<string, unknown>) => Record<string, unknown>): Promise<void> {
+  const db = await new Promise<IDBDatabase>((resolve, reject) => {
+    const r = indexedDB.open(dbName);
+    r.onsuccess = () => resolve(r.result);
+    r.onerror = () => reject(r.error);
+  });
+  try {
+    await new Promise<void>((resolve, reject) => {
+      const tx = db.transaction('outbox', 'readwrite');
+      const store = tx.objectStore('outbox');
+      const r = store.openCursor();
+      r.onsuccess = () => {
+        const cursor = r.result;
+        if (!cursor) return;
+        cursor.update(change(cursor.value as Record<string, unknown>));
+        cursor.continue();
+      };
+      tx.oncomplete = () => resolve();
+      tx.onerror = () => reject(tx.error);
+    });
+  } finally {
+    db.close();
+  }
+}

@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { SyncMessages } from '#shared/contracts/sync.ts';
 import type { TapState } from '@/sync/index.ts';
-import { eventually, newCaseId, newDbName, OFFLINE_URL, readOutboxRaw, startTablet, stopTablets } from './sync-helpers.ts';
+import { eventually, newCaseId, newDbName, OFFLINE_URL, readOutboxRaw, rewriteOutboxRaw, startTablet, stopTablets } from './sync-helpers.ts';
 import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
 
 let server: TestSyncServer | undefined;
@@ -48,6 +48,29 @@ describe('the outbox on the tablet (offline)', () => {
     expect(reloaded.status.getSnapshot()).toMatchObject({ state: 'offline', waiting: 2, refused: [] });
     await reloaded.openCase(caseId);
     expect(reloaded.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[a.id, 'queued'], [b.id, 'queued']]);
+  });
+
+  it('shows a queued tap that this version no longer takes as it is as refused, with the reason, never sending or hiding it', async () => {
+    server = await startTestSyncServer();
+    const dbName = newDbName();
+    const caseId = newCaseId();
+    const before = startTablet(OFFLINE_URL, { dbName });
+    const kept = await before.recordTap({ caseId, kind: 'injection', payload: { agent: 'saline', volumeMl: 5 } });
+    await before.stop();
+    // As if an earlier version had taken a volume the payload rules now refuse (shared/schemas/events.ts: at most 500 ml).
+    await rewriteOutboxRaw(dbName, (row) => ({ ...row, event: { ...(row.event as object), payload: { agent: 'saline', volumeMl: 5000 } } }));
+
+    const after = startTablet(server.url, { dbName });
+    await after.openCase(caseId);
+    await eventually(() => expect(after.status.getSnapshot().connected).toBe(true));
+    expect(after.status.getSnapshot().refused).toEqual([expect.objectContaining({ id: kept.id, reason: expect.stringContaining('payload.volumeMl') })]);
+    expect(after.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[kept.id, 'refused']]);
+    await after.pump();
+    expect(server.pushes.flat()).toEqual([]);
+    // A person decides: fixed, it goes as a new event, and the kept row leaves the outbox.
+    const fixed = await after.resubmitRefused(kept.id, { payload: { agent: 'saline', volumeMl: 50 } });
+    await eventually(() => expect(server!.log(caseId).map((e) => e.id)).toEqual([fixed.id]));
+    await eventually(async () => expect(await readOutboxRaw(dbName)).toEqual([]));
   });
 
   it('refuses to take an invalid tap, shows nothing and stores nothing', async () => {
