@@ -26,13 +26,18 @@ export const newCaseId = () => uuidv7();
 /** Wait until `check` passes (vitest's waitFor, with a short interval). */
 export const eventually = <T>(check: () => T | Promise<T>, timeout = 5_000) => vi.waitFor(check, { timeout, interval: 10 });
 
-/** Read the outbox rows straight from IndexedDB over a fresh connection (what a reload would find). */
-export async function readOutboxRaw(dbName: string): Promise<{ state: string; event: { id: string } }[]> {
-  const db = await new Promise<IDBDatabase>((resolve, reject) => {
+/** A fresh connection to a tablet's database, as a reload would open it. */
+function openRaw(dbName: string): Promise<IDBDatabase> {
+  return new Promise((resolve, reject) => {
     const r = indexedDB.open(dbName);
     r.onsuccess = () => resolve(r.result);
     r.onerror = () => reject(r.error);
   });
+}
+
+/** Read the outbox rows straight from IndexedDB over a fresh connection (what a reload would find). */
+export async function readOutboxRaw(dbName: string): Promise<{ state: string; event: { id: string } }[]> {
+  const db = await openRaw(dbName);
   try {
     return await new Promise((resolve, reject) => {
       const r = db.transaction('outbox', 'readonly').objectStore('outbox').getAll();
@@ -46,11 +51,7 @@ export async function readOutboxRaw(dbName: string): Promise<{ state: string; ev
 
 /** Change the outbox rows in IndexedDB directly (what an earlier version of the app may have left). */
 export async function rewriteOutboxRaw(dbName: string, change: (row: Record<string, unknown>) => Record<string, unknown>): Promise<void> {
-  const db = await new Promise<IDBDatabase>((resolve, reject) => {
-    const r = indexedDB.open(dbName);
-    r.onsuccess = () => resolve(r.result);
-    r.onerror = () => reject(r.error);
-  });
+  const db = await openRaw(dbName);
   try {
     await new Promise<void>((resolve, reject) => {
       const tx = db.transaction('outbox', 'readwrite');
