@@ -54,6 +54,8 @@ export class SyncEngine {
   private lastError: string | null = null;
   private lastWrite: WriteReceipt | null = null;
   private stopped = false;
+  /** Closed at a sign-out, until the next sign-in. */
+  private signedOutSocket = false;
   /** Refused events a person is fixing or discarding right now (one decision each). */
   private readonly settling = new Set<string>();
   readonly ready: Promise<void>;
@@ -121,9 +123,19 @@ export class SyncEngine {
    * a socket keeps the session of its handshake (the last user's, ended by their sign-out).
    */
   setAuthor(userId: string): void {
-    if (userId === this.author) return;
+    if (userId === this.author && !this.signedOutSocket) return;
+    this.signedOutSocket = false;
     this.author = userId;
     this.reconnect();
+  }
+
+  /**
+   * The user signed out: the socket is closed, since it holds their session (it would go on hearing the
+   * case's room); what is queued stays queued, sent after the next sign-in (`setAuthor`).
+   */
+  signedOut(): void {
+    this.signedOutSocket = true;
+    this.socket.disconnect();
   }
 
   /**

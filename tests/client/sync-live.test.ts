@@ -107,4 +107,26 @@ describe('live sync between tablets', () => {
     await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
     expect(tap.author).toBe('user-test-nurse-two');
   });
+
+  it('closes its socket at a sign-out and sends what was tapped meanwhile once the same user signs in again', async () => {
+    server = await startTestSyncServer();
+    const ended = new Set<string>();
+    server.io.on('connection', (s) => s.prependListener(SyncMessages.eventsPush, (_msg: unknown, ack: (a: unknown) => void) => {
+      if (ended.has(s.id)) ack({ error: 'Your session has ended; sign in again', code: 'unauthorized' });
+    }));
+    const caseId = newCaseId();
+    const author = 'user-test-nurse-one';
+    const tablet = startTablet(server.url, { dbName: newDbName(), author });
+    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+
+    for (const s of server.io.sockets.sockets.values()) ended.add(s.id);
+    tablet.signedOut();
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ connected: false, state: 'offline' }));
+    await eventually(() => expect(server.io.sockets.sockets.size).toBe(0)); // it hears no case's room while signed out
+    const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    expect(tablet.status.getSnapshot().waiting).toBe(1);
+
+    tablet.setAuthor(author); // the same nurse signs in again: a new handshake, with the new session
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+  });
 });
