@@ -11,7 +11,7 @@ import { newOutboxEntry } from './outbox.ts';
 import { Pusher } from './pusher.ts';
 import { request, type SyncSocket } from './socket-client.ts';
 import { buildStatus, type SyncStatus } from './status.ts';
-import { openSyncStorage, type WriteReceipt } from './storage.ts';
+import { openSyncStorage, type Settlement, type WriteReceipt } from './storage.ts';
 
 export type SyncEngineOptions = {
   socket: SyncSocket;
@@ -158,8 +158,9 @@ export class SyncEngine {
     return this.tap(input, null);
   }
 
-  private tap<K extends EventKind>(input: TapInput<K>, discardOf: string | null): Promise<NewEventOf<K>> {
-    if (!this.device) return this.ready.then(() => this.tap(input, discardOf));
+  /** `settles`: the refused event this tap decides about (a discard's remark), written with it. */
+  private tap<K extends EventKind>(input: TapInput<K>, discardOf: string | null, settles?: (event: NewEvent) => Settlement): Promise<NewEventOf<K>> {
+    if (!this.device) return this.ready.then(() => this.tap(input, discardOf, settles));
     let event: NewEvent;
     try {
       event = newEventSchema.parse({
@@ -171,14 +172,14 @@ export class SyncEngine {
     } catch (err) {
       return Promise.reject(err);
     }
-    return this.enqueue(event, discardOf).then(() => event as NewEventOf<K>);
+    return this.enqueue(event, discardOf, settles?.(event)).then(() => event as NewEventOf<K>);
   }
 
-  private enqueue(event: NewEvent, discardOf: string | null = null): Promise<void> {
+  private enqueue(event: NewEvent, discardOf: string | null = null, settles?: Settlement): Promise<void> {
     const entry = newOutboxEntry(event, discardOf);
     // The write is started first (synchronously, when the database is open), then the tap is shown: the
     // disk works while the screen draws the tap.
-    const written = this.storage.putOutbox(entry);
+    const written = this.storage.putOutbox(entry, settles);
     this.entries.set(event.id, { ...entry, live: 'saving' });
     this.changed(event.caseId);
     return written.then((receipt) => {
@@ -187,6 +188,7 @@ export class SyncEngine {
       this.lastWrite = receipt;
       const p = this.entries.get(event.id);
       if (p?.live === 'saving') p.live = 'queued';
+      if (settles) this.entries.delete(settles.drop);
       // Only now: nothing is sent before its IndexedDB write committed. Sent first, then drawn: telling
       // the screen rebuilds its snapshot at once, and the push need not wait for that.
       void this.pusher.pump();
@@ -206,13 +208,17 @@ export class SyncEngine {
   async discardRefused(id: string, why: string): Promise<void> {
     const p = this.refusedEntry(id);
     try {
-      let recordedAs: string | null = null;
-      if (!p.discardOf) {
-        const remark = await this.tap({ caseId: p.event.caseId, kind: 'remark', payload: { text: discardRemarkText(p.event, p.reason, why) } }, id);
-        recordedAs = remark.id;
+      const decided = (recordedAs: string | null): Settlement => ({
+        audit: { action: 'discarded', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs },
+        drop: id,
+      });
+      if (p.discardOf) {
+        await this.storage.settleRefused(decided(null));
+        this.entries.delete(id);
+        this.changed(p.event.caseId);
+      } else {
+        await this.tap({ caseId: p.event.caseId, kind: 'remark', payload: { text: discardRemarkText(p.event, p.reason, why) } }, id, (remark) => decided(remark.id));
       }
-      await this.storage.appendAudit({ action: 'discarded', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs });
-      await this.drop(p.event);
     } finally { this.settling.delete(id); }
   }
 
@@ -221,9 +227,10 @@ export class SyncEngine {
     const p = this.refusedEntry(id);
     try {
       const event = rebuildEvent(p.event, changes, { id: uuidv7(), author: this.author });
-      await this.enqueue(event);
-      await this.storage.appendAudit({ action: 'replaced', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs: event.id });
-      await this.drop(p.event);
+      await this.enqueue(event, null, {
+        audit: { action: 'replaced', event: p.event, reason: p.reason, by: this.author, at: new Date(this.now()).toISOString(), why, recordedAs: event.id },
+        drop: id,
+      });
       return event;
     } finally { this.settling.delete(id); }
   }
@@ -234,12 +241,6 @@ export class SyncEngine {
     if (this.settling.has(id)) throw new Error(`The refused event ${id} is already being fixed or discarded`);
     this.settling.add(id);
     return p;
-  }
-
-  private async drop(event: NewEvent): Promise<void> {
-    await this.storage.deleteOutbox(event.id);
-    this.entries.delete(event.id);
-    this.changed(event.caseId);
   }
 
   /** The tablet's own audit of discarded and replaced events. */

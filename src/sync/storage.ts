@@ -1,4 +1,4 @@
-import { del, get, promisifyRequest, set, type UseStore } from 'idb-keyval';
+import { get, promisifyRequest, set, type UseStore } from 'idb-keyval';
 import type { StoredEvent } from '#shared/schemas/events.ts';
 import { keptOutboxEntry, outboxEntrySchema, type OutboxEntry, type AuditEntry } from './outbox.ts';
 
@@ -18,6 +18,18 @@ type StoreName = (typeof STORES)[number];
 export type WriteReceipt = { durability: IDBTransactionDurability; ms: number };
 
 export type SyncStorage = ReturnType<typeof openSyncStorage>;
+
+/**
+ * A person's decision about a refused event: the audit entry, and the refused row out of the outbox.
+ * Written in the same transaction as the event that replaces it or records the discard, so that a tab
+ * that dies meanwhile leaves all of it or none (never the refused event beside its replacement).
+ */
+export type Settlement = { audit: AuditEntry; drop: string };
+
+function settle(tx: IDBTransaction, { audit, drop }: Settlement): void {
+  tx.objectStore('audit').add(audit);
+  tx.objectStore('outbox').delete(drop);
+}
 
 export function openSyncStorage(dbName = 'ledgerline', now: () => number = () => performance.now()) {
   let dbp: Promise<IDBDatabase> | undefined;
@@ -51,11 +63,17 @@ export function openSyncStorage(dbName = 'ledgerline', now: () => number = () =>
      * Write one outbox entry and resolve once its transaction has committed (the `complete` event of a
      * 'strict' transaction: flushed to disk, not only to the OS). Returns what was asked and how long it took.
      */
-    putOutbox(entry: OutboxEntry): Promise<WriteReceipt> {
+    putOutbox(entry: OutboxEntry, settles?: Settlement): Promise<WriteReceipt> {
       const started = now();
       const write = (db: IDBDatabase): Promise<WriteReceipt> => {
-        const tx = db.transaction('outbox', 'readwrite', { durability: 'strict' });
-        tx.objectStore('outbox').put(entry, entry.event.id);
+        const tx = db.transaction(settles ? ['outbox', 'audit'] : 'outbox', 'readwrite', { durability: 'strict' });
+        try {
+          tx.objectStore('outbox').put(entry, entry.event.id);
+          if (settles) settle(tx, settles);
+        } catch (err) {
+          tx.abort(); // a write refused at once (a value IndexedDB cannot hold): none of the others either
+          throw err;
+        }
         // Commit now, without waiting for the put's success event: that event is a task on the page's
         // thread, which after a tap is busy drawing it, and an implicit commit waits for it.
         tx.commit?.();
@@ -68,7 +86,14 @@ export function openSyncStorage(dbName = 'ledgerline', now: () => number = () =>
       }
       return getDb().then(write);
     },
-    deleteOutbox: (id: string) => del(id, outbox),
+    /** A person's decision about a refused event with no new event to write: its audit entry and its removal, together. */
+    async settleRefused(settles: Settlement): Promise<void> {
+      const db = await getDb();
+      const tx = db.transaction(['outbox', 'audit'], 'readwrite', { durability: 'strict' });
+      try { settle(tx, settles); } catch (err) { tx.abort(); throw err; }
+      tx.commit?.();
+      await promisifyRequest(tx);
+    },
     /**
      * Every outbox entry, oldest first (UUIDv7 keys sort by creation time). A row this version no longer
      * takes as it is comes back refused, with the reason (`keptOutboxEntry`); one whose envelope cannot be
@@ -104,9 +129,6 @@ export function openSyncStorage(dbName = 'ledgerline', now: () => number = () =>
       events('readonly', (s) => promisifyRequest(s.getAll(caseRange(caseId)) as IDBRequest<StoredEvent[]>)),
     getMeta: <T>(key: string) => get<T>(key, meta),
     setMeta: (key: string, value: unknown) => set(key, value, meta),
-    async appendAudit(entry: AuditEntry): Promise<void> {
-      await audit('readwrite', (s) => { s.add(entry); return promisifyRequest(s.transaction); });
-    },
     listAudit: (): Promise<AuditEntry[]> => audit('readonly', (s) => promisifyRequest(s.getAll() as IDBRequest<AuditEntry[]>)),
     /** Close the connection (a "reload" in tests opens a new one over the same database). */
     async close(): Promise<void> {

@@ -1,4 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
+import type { AuditEntry } from '@/sync/outbox.ts';
+import { openSyncStorage } from '@/sync/storage.ts';
+import { buildEvent } from '../factories/events.ts';
 import { eventually, newCaseId, newDbName, readOutboxRaw, startTablet, stopTablets } from './sync-helpers.ts';
 import { startTestSyncServer, type TestSyncServer } from './sync-test-server.ts';
 
@@ -106,5 +109,24 @@ describe('refused events', () => {
     await Promise.allSettled([tablet.discardRefused(bad.id, 'Charted on paper'), tablet.discardRefused(bad.id, 'Charted on paper')]);
     await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
     expect(server.log(caseId).filter((e) => e.kind === 'remark')).toHaveLength(1);
+  });
+
+  it('are replaced in one IndexedDB transaction: if any part of it fails, the refused event stays as it was', async () => {
+    const dbName = newDbName();
+    const storage = openSyncStorage(dbName);
+    try {
+      const caseId = newCaseId();
+      const refused = buildEvent('medication', { caseId, payload: { drug: 'midazolam' } });
+      const fixed = buildEvent('medication', { caseId, payload: { drug: 'midazolam', dose: 2, unit: 'mg', route: 'IV' } });
+      await storage.putOutbox({ event: refused, state: 'refused', reason: 'A medication needs its dose', attempts: 1, discardOf: null });
+      // An audit entry IndexedDB cannot hold (a function): its write fails, and so must the others.
+      const unstorable = { action: 'replaced', event: refused, reason: null, by: 'u', at: new Date(0).toISOString(), why: 'x', recordedAs: fixed.id, note: () => undefined } as unknown as AuditEntry;
+      await expect(storage.putOutbox({ event: fixed, state: 'queued', reason: null, attempts: 0, discardOf: null }, { audit: unstorable, drop: refused.id })).rejects.toThrow();
+      await expect(storage.settleRefused({ audit: unstorable, drop: refused.id })).rejects.toThrow();
+      expect((await readOutboxRaw(dbName)).map((r) => [r.event.id, r.state])).toEqual([[refused.id, 'refused']]);
+      expect(await storage.listAudit()).toEqual([]);
+    } finally {
+      await storage.close();
+    }
   });
 });
