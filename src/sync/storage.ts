@@ -82,7 +82,14 @@ export function openSyncStorage(dbName = 'ledgerline', now: () => number = () =>
       // With the connection open the transaction is created in this call, before the caller draws
       // anything: the disk write runs while the tap's frame is rendered, not after it.
       if (opened) {
-        try { return write(opened); } catch { opened = undefined; dbp = undefined; } // closed meanwhile: open again
+        try {
+          return write(opened);
+        } catch (err) {
+          // Closed meanwhile: open again. Any other failure (a value it cannot hold) is the write's own.
+          if (!(err instanceof DOMException && err.name === 'InvalidStateError')) return Promise.reject(err);
+          opened = undefined;
+          dbp = undefined;
+        }
       }
       return getDb().then(write);
     },

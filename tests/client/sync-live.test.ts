@@ -10,6 +10,20 @@ afterEach(async () => {
   await server?.close();
 });
 
+/**
+ * As the server does: a socket keeps the session of its handshake, and a push over a socket whose
+ * session has ended is answered 'unauthorized' (here before the test server's own handler, whose later
+ * answer is then ignored). A new handshake carries the session signed in now. Returns "end the
+ * sessions of the sockets connected now".
+ */
+function endingSessions(server: TestSyncServer): () => void {
+  const ended = new Set<string>();
+  server.io.on('connection', (s) => s.prependListener(SyncMessages.eventsPush, (_msg: unknown, ack: (a: unknown) => void) => {
+    if (ended.has(s.id)) ack({ error: 'Your session has ended; sign in again', code: 'unauthorized' });
+  }));
+  return () => { for (const s of server.io.sockets.sockets.values()) ended.add(s.id); };
+}
+
 describe('live sync between tablets', () => {
   it('shows a tap from another tablet in the same case as it is stored', async () => {
     server = await startTestSyncServer();
@@ -90,18 +104,12 @@ describe('live sync between tablets', () => {
 
   it('sends the taps of a user who signs in after another signed out on the same page', async () => {
     server = await startTestSyncServer();
-    // As the server does: a socket keeps the session of its handshake, and a push over a socket whose
-    // session has ended is answered 'unauthorized' (here before the test server's own handler, whose
-    // later answer is then ignored). A new handshake carries the session signed in now.
-    const ended = new Set<string>();
-    server.io.on('connection', (s) => s.prependListener(SyncMessages.eventsPush, (_msg: unknown, ack: (a: unknown) => void) => {
-      if (ended.has(s.id)) ack({ error: 'Your session has ended; sign in again', code: 'unauthorized' });
-    }));
+    const endSessions = endingSessions(server);
     const caseId = newCaseId();
     const tablet = startTablet(server.url, { dbName: newDbName() });
     await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
 
-    for (const s of server.io.sockets.sockets.values()) ended.add(s.id); // the first nurse signed out
+    endSessions(); // the first nurse signed out
     tablet.setAuthor('user-test-nurse-two'); // the second signed in
     const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
     await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
@@ -110,16 +118,13 @@ describe('live sync between tablets', () => {
 
   it('closes its socket at a sign-out and sends what was tapped meanwhile once the same user signs in again', async () => {
     server = await startTestSyncServer();
-    const ended = new Set<string>();
-    server.io.on('connection', (s) => s.prependListener(SyncMessages.eventsPush, (_msg: unknown, ack: (a: unknown) => void) => {
-      if (ended.has(s.id)) ack({ error: 'Your session has ended; sign in again', code: 'unauthorized' });
-    }));
+    const endSessions = endingSessions(server);
     const caseId = newCaseId();
     const author = 'user-test-nurse-one';
     const tablet = startTablet(server.url, { dbName: newDbName(), author });
     await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
 
-    for (const s of server.io.sockets.sockets.values()) ended.add(s.id);
+    endSessions();
     tablet.signedOut();
     await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ connected: false, state: 'offline' }));
     await eventually(() => expect(server.io.sockets.sockets.size).toBe(0)); // it hears no case's room while signed out

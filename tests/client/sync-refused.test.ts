@@ -16,6 +16,17 @@ const refuseDoseless = () => startTestSyncServer({
   refuse: (e) => (e.kind === 'medication' && e.payload.dose === undefined ? 'A medication needs its dose' : null),
 });
 
+/** A tablet on a server that refuses doseless medication, holding one such tap, refused. */
+async function refusedMedication(drug: string) {
+  server = await refuseDoseless();
+  const caseId = newCaseId();
+  const tablet = startTablet(server.url, { dbName: newDbName() });
+  await tablet.openCase(caseId);
+  const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug } });
+  await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+  return { caseId, tablet, bad };
+}
+
 describe('refused events', () => {
   it('stay on the tablet with their reason, across a reload, while the others of the batch are stored', async () => {
     server = await refuseDoseless();
@@ -38,12 +49,7 @@ describe('refused events', () => {
   });
 
   it('are fixed by sending a new event with a new id, keeping the time of the tap', async () => {
-    server = await refuseDoseless();
-    const caseId = newCaseId();
-    const tablet = startTablet(server.url, { dbName: newDbName() });
-    await tablet.openCase(caseId);
-    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'midazolam' } });
-    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+    const { caseId, tablet, bad } = await refusedMedication('midazolam');
 
     const fixed = await tablet.resubmitRefused(bad.id, { payload: { drug: 'midazolam', dose: 2, unit: 'mg', route: 'IV' } });
     await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
@@ -54,12 +60,7 @@ describe('refused events', () => {
   });
 
   it('are discarded only with a recorded remark saying what and why, and an audit entry on the tablet', async () => {
-    server = await refuseDoseless();
-    const caseId = newCaseId();
-    const tablet = startTablet(server.url, { dbName: newDbName() });
-    await tablet.openCase(caseId);
-    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'fentanyl' } });
-    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+    const { caseId, tablet, bad } = await refusedMedication('fentanyl');
 
     await tablet.discardRefused(bad.id, 'Given before the case, already charted');
     await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
@@ -82,12 +83,7 @@ describe('refused events', () => {
   });
 
   it('are fixed once when "send again" is tapped twice in a row', async () => {
-    server = await refuseDoseless();
-    const caseId = newCaseId();
-    const tablet = startTablet(server.url, { dbName: newDbName() });
-    await tablet.openCase(caseId);
-    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'midazolam' } });
-    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+    const { caseId, tablet, bad } = await refusedMedication('midazolam');
 
     const fix = { payload: { drug: 'midazolam', dose: 2, unit: 'mg', route: 'IV' } };
     const [first, second] = await Promise.allSettled([tablet.resubmitRefused(bad.id, fix), tablet.resubmitRefused(bad.id, fix)]);
@@ -99,12 +95,7 @@ describe('refused events', () => {
   });
 
   it('are discarded with one remark when "discard" is tapped twice in a row', async () => {
-    server = await refuseDoseless();
-    const caseId = newCaseId();
-    const tablet = startTablet(server.url, { dbName: newDbName() });
-    await tablet.openCase(caseId);
-    const bad = await tablet.recordTap({ caseId, kind: 'medication', payload: { drug: 'fentanyl' } });
-    await eventually(() => expect(tablet.status.getSnapshot().refused).toHaveLength(1));
+    const { caseId, tablet, bad } = await refusedMedication('fentanyl');
 
     await Promise.allSettled([tablet.discardRefused(bad.id, 'Charted on paper'), tablet.discardRefused(bad.id, 'Charted on paper')]);
     await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ waiting: 0, refused: [] }));
