@@ -3,6 +3,16 @@ import type { Socket } from 'socket.io';
 import type { z } from 'zod';
 import { jsonBytes, toIssues, type SyncError } from '#shared/contracts/sync.ts';
 
+/** JSON size of a message, or null when it is nested too deeply for JSON.stringify (a RangeError). */
+function measured(message: unknown): number | null {
+  try {
+    return jsonBytes(message);
+  } catch (err) {
+    if (err instanceof RangeError) return null;
+    throw err;
+  }
+}
+
 /** An error answer to the sender only. */
 export const syncError = (code: SyncError['code'], error: string, issues?: SyncError['issues']): SyncError =>
   ({ error, code, ...(issues ? { issues } : {}) });
@@ -36,7 +46,8 @@ export function handle<S extends z.ZodType>(
     try {
       const message = args.slice(0, -1);
       if (message.length !== 1) { reply(syncError('bad_request', `${name} takes one message object and an ack`)); return; }
-      const bytes = jsonBytes(message[0]);
+      const bytes = measured(message[0]);
+      if (bytes === null) { reply(syncError('bad_request', `The ${name} message is nested too deeply to read`)); return; }
       if (bytes > maxBytes) { reply(syncError('too_large', `The ${name} message is ${bytes} bytes; at most ${maxBytes} are accepted`)); return; }
       const parsed = schema.safeParse(message[0]);
       if (!parsed.success) {

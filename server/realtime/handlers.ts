@@ -30,11 +30,18 @@ export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDe
     const access = await caseAccess(db, userId, caseId);
     if (isDenied(access)) throw refusal(access);
     await socket.join(caseRoom(caseId));
-    if (afterSeq === 0) {
-      await insertAudit(db, { action: 'record.view', entityType: 'case', entityId: caseId, userId, unitId: access.unitId, ip: socket.handshake.address });
-    }
     // The status as of the page's lastSeq (read with it), not the one the access check read before.
     const { status, ...page } = await eventsPageWithStatus(db, caseId, afterSeq);
+    // A socket in the room hears every event from now on: its first join of a case is a reading of the
+    // record, whatever it held before (a later page of the same catch-up, or a join again, is not).
+    const { viewed } = socket.data as SocketData;
+    if (!viewed.has(caseId)) {
+      await insertAudit(db, {
+        action: 'record.view', entityType: 'case', entityId: caseId, userId, unitId: access.unitId, ip: socket.handshake.address,
+        detail: { via: 'sync', afterSeq, events: page.events.length },
+      });
+      viewed.add(caseId);
+    }
     return { caseId, status: status ?? access.status, ...page };
   }, small);
 

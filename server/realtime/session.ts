@@ -8,9 +8,10 @@ import { SyncRefusal, syncError } from './guard.ts';
 
 /**
  * What a socket carries once its handshake passed (socket.data): its user, the token of the session its
- * cookie names, and when better-auth last checked that session in full.
+ * cookie names, when better-auth last checked that session in full, and the cases whose reading by this
+ * socket is in the audit log.
  */
-export type SocketData = { userId: string; sessionToken: string; fullCheckAt: number };
+export type SocketData = { userId: string; sessionToken: string; fullCheckAt: number; viewed: Set<string> };
 
 /**
  * How long the session of a socket is checked by its row alone between two full checks. A full check
@@ -35,7 +36,7 @@ export function requireSession(auth: Auth) {
     handshakeSession(auth, socket).then(
       (found) => {
         if (!found) return next(Object.assign(new Error('Sign in first'), { data: { code: 'unauthorized' } }));
-        const data: SocketData = { userId: found.userId, sessionToken: found.token, fullCheckAt: Date.now() };
+        const data: SocketData = { userId: found.userId, sessionToken: found.token, fullCheckAt: Date.now(), viewed: new Set() };
         Object.assign(socket.data as SocketData, data);
         next();
       },

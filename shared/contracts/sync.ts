@@ -30,7 +30,9 @@ export const MAX_PUSH_BYTES = 1024 * 1024;
 /** Most events in one page of a join answer or a REST read. */
 export const EVENTS_PAGE_SIZE = 500;
 /** Room of one case: every socket that joined it receives its `events.recorded`. */
-export const caseRoom = (caseId: string) => `case:${caseId}`;
+export const caseRoom = (caseId: string) => `case:${caseId.toLowerCase()}`;
+/** The highest sequence a case can reach (the column is a PostgreSQL integer); a read after it is refused. */
+export const MAX_SEQ = 2_147_483_647;
 
 export { MAX_EVENT_BYTES };
 
@@ -76,7 +78,7 @@ export type EventsPushAck = z.infer<typeof eventsPushAckSchema>;
 export const caseJoinSchema = z.strictObject({
   caseId: uuidSchema,
   /** The last sequence the tablet already holds for this case; 0 for none. */
-  afterSeq: z.number().int().min(0),
+  afterSeq: z.number().int().min(0).max(MAX_SEQ),
 });
 export type CaseJoin = z.infer<typeof caseJoinSchema>;
 

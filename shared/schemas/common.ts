@@ -5,12 +5,17 @@ export const roles = ['nurse', 'endoscopist', 'supervisor', 'admin'] as const;
 export const roleSchema = z.enum(roles);
 export type Role = z.infer<typeof roleSchema>;
 
-/** RFC 9562 UUID, any version; UUIDv7 where the id is made on the tablet. */
-export const uuidSchema = z.uuid();
+/**
+ * RFC 9562 UUID, any version; UUIDv7 where the id is made on the tablet. Read in either case and kept in
+ * lower case (RFC 9562 §4: case-insensitive on input, lower case on output), so that one id is one
+ * string everywhere: in maps, in room names, beside what PostgreSQL's uuid type gives back.
+ */
+export const uuidSchema = z.uuid().toLowerCase();
 /** RFC 9562 §5.7: version nibble 7, variant bits 10. */
 export const uuidV7Schema = z
   .string()
-  .regex(/^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/i, 'must be a UUIDv7');
+  .regex(/^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/i, 'must be a UUIDv7')
+  .toLowerCase();
 
 /** ISO 8601 date-time with an offset or Z, as sent on the wire. */
 export const isoDateTimeSchema = z.iso.datetime({ offset: true });

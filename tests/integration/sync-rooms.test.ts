@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { asBrowser } from './factories.ts';
+import { and, eq } from 'drizzle-orm';
+import { auditLog } from '#server/db/schema/index.ts';
+import { asBrowser, buildUnit, signIn } from './factories.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
 import { join, newCase, push, recordedBy, signedInTeam, startNode, stopAll, tablet, tap, type SignedInTeam } from './sync-helpers.ts';
 
@@ -103,6 +105,20 @@ describe('case rooms', () => {
     const body = await res.json() as { entries: { user: { id: string } | null; action: string }[] };
     expect(body.entries).toEqual([expect.objectContaining({ action: 'record.view', user: expect.objectContaining({ id: team.members.supervisor.id }) })]);
   });
+
+  it('writes a socket\'s first join of a case to the audit log whatever it held before, once per socket', async () => {
+    const caseId = await newCase(t, team);
+    const nurse = await tablet(nodeA, team.cookies.nurse);
+    await push(nurse, caseId, [tap('scope_in', caseId, team.members.nurse.id), tap('marking', caseId, team.members.nurse.id)]);
+    const views = () => t.db.select().from(auditLog).where(and(eq(auditLog.entityId, caseId), eq(auditLog.action, 'record.view'), eq(auditLog.userId, team.members.supervisor.id)));
+    const s = await tablet(nodeA, team.cookies.supervisor);
+    expect(await join(s, caseId, 1)).toMatchObject({ events: [{ seq: 2 }] });
+    await join(s, caseId, 2);
+    expect(await views()).toEqual([expect.objectContaining({ unitId: team.unit.id, detail: { via: 'sync', afterSeq: 1, events: 1 } })]);
+    // Another socket (a reload, a second tablet) is another reading.
+    await join(await tablet(nodeB, team.cookies.supervisor), caseId, 2);
+    expect((await views()).map((v) => v.detail)).toEqual([{ via: 'sync', afterSeq: 1, events: 1 }, { via: 'sync', afterSeq: 2, events: 0 }]);
+  });
 });
 
 describe('the event log over HTTP', () => {
@@ -138,5 +154,21 @@ describe('the event log over HTTP', () => {
     const badQuery = await fetch(`${nodeA}/api/cases/${caseId}/events?after=-4`, { headers: asBrowser(team.cookies.nurse) });
     expect(badQuery.status).toBe(400);
     expect(await badQuery.json()).toMatchObject({ issues: [{ path: 'after' }] });
+  });
+
+  it('writes every HTTP read that shows events to the audit log of the case\'s unit, not the reader\'s first one', async () => {
+    const caseId = await newCase(t, team);
+    const s = await tablet(nodeA, team.cookies.nurse);
+    await push(s, caseId, [tap('scope_in', caseId, team.members.nurse.id), tap('marking', caseId, team.members.nurse.id)]);
+    // The admin of another unit, also a supervisor here: their first (and active) unit is their own.
+    const elsewhere = await buildUnit(t);
+    await t.auth.api.addMember({ body: { userId: elsewhere.admin.id, organizationId: team.unit.id, role: 'supervisor' } });
+    const cookie = await signIn(t, elsewhere.admin);
+    for (const after of [1, 2]) {
+      expect((await fetch(`${nodeA}/api/cases/${caseId}/events?after=${after}`, { headers: asBrowser(cookie) })).status).toBe(200);
+    }
+    const views = await t.db.select().from(auditLog).where(and(eq(auditLog.entityId, caseId), eq(auditLog.userId, elsewhere.admin.id)));
+    // The read after 2 showed nothing and is not written.
+    expect(views).toEqual([expect.objectContaining({ action: 'record.view', unitId: team.unit.id, detail: { via: 'events', after: 1, events: 1 } })]);
   });
 });

@@ -5,7 +5,7 @@ import type { ApiContext } from '#server/http/context.ts';
 import { forbidden, notFound } from '#server/http/errors.ts';
 import { actorOf } from '#server/http/session.ts';
 import { parseBody, parseParams, parseQuery } from '#server/http/validate.ts';
-import { EVENTS_PAGE_SIZE, eventsPushSchema } from '#shared/contracts/sync.ts';
+import { EVENTS_PAGE_SIZE, eventsPushSchema, MAX_SEQ } from '#shared/contracts/sync.ts';
 import { uuidSchema } from '#shared/schemas/common.ts';
 import { caseAccess, isDenied, recordDenial, type AccessDenied } from './access.ts';
 import { announceRecorded } from './recorded.ts';
@@ -14,7 +14,7 @@ import { eventsPage, recordEvents } from './service.ts';
 const caseParams = z.object({ id: uuidSchema });
 /** GET query: `after` the last sequence held (0 for all), `limit` the page size. */
 const pageQuery = z.object({
-  after: z.coerce.number().int().min(0).default(0),
+  after: z.coerce.number().int().min(0).max(MAX_SEQ).default(0),
   limit: z.coerce.number().int().min(1).max(EVENTS_PAGE_SIZE).default(EVENTS_PAGE_SIZE),
 });
 /** POST body: a batch, as on the socket (`events.push`) but with the case in the path. */
@@ -35,8 +35,13 @@ export function eventsRouter(ctx: ApiContext): Router {
     const { after, limit } = parseQuery(pageQuery, req);
     const access = await caseAccess(db, actorOf(req).userId, id);
     if (isDenied(access)) throw httpError(access);
-    if (after === 0) await audit(db, req, { action: 'record.view', entityType: 'case', entityId: id });
-    res.json(await eventsPage(db, id, after, limit));
+    const page = await eventsPage(db, id, after, limit);
+    // Every read that shows events is a reading of the record, in the case's unit (which need not be the
+    // reader's active one); so is a read from the start that finds none.
+    if (after === 0 || page.events.length) {
+      await audit(db, req, { action: 'record.view', entityType: 'case', entityId: id, unitId: access.unitId, detail: { via: 'events', after, events: page.events.length } });
+    }
+    res.json(page);
   });
 
   router.post('/cases/:id/events', authenticate, async (req, res) => {
