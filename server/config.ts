@@ -25,6 +25,11 @@ const envSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
   /** Folder of the built client (vite build). */
   CLIENT_DIST: z.string().default('dist'),
+  /**
+   * How often each node checks that its open sockets' sessions still hold and that their users may still
+   * read the cases whose rooms they are in (server/realtime/rights.ts).
+   */
+  RIGHTS_CHECK_MS: z.coerce.number().int().min(50).default(15_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 

@@ -5,13 +5,15 @@ import { createApp } from './app.ts';
 import { createAuth } from './auth.ts';
 import type { Config } from './config.ts';
 import { createDatabase } from './db/client.ts';
-import { createRealtime } from './realtime/index.ts';
+import { createRealtime, type RealtimeServer } from './realtime/index.ts';
 import { createMailer } from './services/mail.ts';
 
 export interface RunningServer {
   /** http://host:port the server listens on (port 0 in the config picks a free one). */
   url: string;
   httpServer: Server;
+  /** The Socket.IO server (its rooms are this node's view of who hears which case). */
+  io: RealtimeServer;
   /** Stop accepting, close sockets and connections, end the pool. */
   close(): Promise<void>;
 }
@@ -45,5 +47,5 @@ export async function startServer(config: Config, options: { logger?: Logger } =
     await database.close();
   })());
 
-  return { url: `http://${host}:${port}`, httpServer, close };
+  return { url: `http://${host}:${port}`, httpServer, io: realtime.io, close };
 }

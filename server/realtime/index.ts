@@ -9,9 +9,11 @@ import { rowToStored } from '../modules/events/intake.ts';
 import { eventsBetween } from '../modules/events/queries.ts';
 import { onRecorded } from '../modules/events/recorded.ts';
 import { caseRoom, MAX_PUSH_BYTES, SyncMessages, type ClientToServerEvents, type ServerToClientEvents } from '#shared/contracts/sync.ts';
+import { uuidSchema } from '#shared/schemas/common.ts';
 import type { StoredEvent } from '#shared/schemas/events.ts';
 import { attachPostgresAdapter } from './adapter.ts';
 import { registerHandlers } from './handlers.ts';
+import { startRightsCheck } from './rights.ts';
 import { requireSession, type SocketData } from './session.ts';
 
 export interface RealtimeDeps { db: Db; auth: Auth; config: Config; logger: Logger }
@@ -22,7 +24,7 @@ export interface RealtimeDeps { db: Db; auth: Auth; config: Config; logger: Logg
  * before the message left, and tells its own sockets.
  */
 const RECORDED_ELSEWHERE = 'events.recorded.elsewhere';
-const recordedElsewhereSchema = z.object({ caseId: z.uuid(), fromSeq: z.int().positive(), toSeq: z.int().positive() });
+const recordedElsewhereSchema = z.object({ caseId: uuidSchema, fromSeq: z.int().positive(), toSeq: z.int().positive() });
 type RecordedElsewhere = z.infer<typeof recordedElsewhereSchema>;
 type InterServerEvents = { [RECORDED_ELSEWHERE]: (msg: RecordedElsewhere) => void };
 
@@ -59,6 +61,7 @@ export async function createRealtime(httpServer: HttpServer, { db, auth, config,
 
   io.use(requireSession(auth));
   io.on('connection', (socket) => registerHandlers(socket, { db, auth, logger: log }));
+  const stopRightsCheck = startRightsCheck(() => [...io.of('/').sockets.values()], db, config.RIGHTS_CHECK_MS, log);
 
   // A plain io.to(room).emit() with the adapter waits for its NOTIFY to PostgreSQL before it writes to
   // this node's own sockets, and sends every event through PostgreSQL (a table row above 8,000 bytes),
@@ -95,9 +98,12 @@ export async function createRealtime(httpServer: HttpServer, { db, auth, config,
     io,
     close: () => (closing ??= (async () => {
       stopListening();
-      io.disconnectSockets(true);
-      await adapter.close();
+      stopRightsCheck();
+      // The connections are closed, the sockets not told to disconnect: a tablet the server told so does
+      // not reconnect by itself, and one whose connection dropped does (to this server started again, or
+      // to another node).
       io.engine.close();
+      await adapter.close();
     })()),
   };
 }

@@ -110,7 +110,16 @@ export class SyncEngine {
       this.cases.joinOpen();
       this.pusher.connected();
     });
-    s.on('disconnect', () => { this.sampler.stop(); this.changed(); });
+    s.on('disconnect', (reason) => {
+      this.sampler.stop();
+      // The server closes a socket whose session ended (server/realtime/rights.ts); Socket.IO does not
+      // reconnect after that, and the next sign-in, even of the same user, must.
+      if (reason === 'io server disconnect' && !this.stopped) {
+        this.signedOutSocket = true;
+        this.lastError = 'The server ended this connection: your session has ended; sign in again';
+      }
+      this.changed();
+    });
     s.on('connect_error', (err) => { this.lastError = err.message; this.changed(); });
     s.on(SyncMessages.eventsRecorded, (msg) => this.cases.onRecorded(msg));
     this.changed();

@@ -13,9 +13,9 @@ export type TestSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 const nodes: RunningServer[] = [];
 const sockets: TestSocket[] = [];
 
-/** A server node (HTTP + Socket.IO) on a free loopback port over the test database. */
-export async function startNode(t: TestContext): Promise<RunningServer> {
-  const node = await startServer({ ...t.config, HOST: '127.0.0.1', PORT: 0 }, { logger: pino({ level: 'silent' }) });
+/** A server node (HTTP + Socket.IO) on a free loopback port over the test database, with any settings changed. */
+export async function startNode(t: TestContext, overrides: Partial<TestContext['config']> = {}): Promise<RunningServer> {
+  const node = await startServer({ ...t.config, ...overrides, HOST: '127.0.0.1', PORT: 0 }, { logger: pino({ level: 'silent' }) });
   nodes.push(node);
   return node;
 }
