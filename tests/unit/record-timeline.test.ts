@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { v7 as uuidv7 } from 'uuid';
 import { buildRecord, toRecordInput } from '#shared/domain/record/index.ts';
-import type { NewEvent } from '#shared/schemas/events.ts';
+import { eventKinds, payloadSchemas, type NewEvent } from '#shared/schemas/events.ts';
 import { caseLog, minutes, shuffled } from './record-factories.ts';
 
 // The rules checked here are PRODUCT.md's ("The record": effective timeline, voids and amendments) and the
@@ -181,6 +181,24 @@ describe('bad events', () => {
     expect(byId[strict]!.message).toContain('extra');
     expect(record.problems.filter((p) => p.code === 'malformed_event')).toHaveLength(3);
     expect(record.timeline).toEqual([]);
+  });
+
+  it('are judged alike with an empty payload, whatever the kind, as its schema judges them', () => {
+    // The check skips the schema for `{}` where the schema takes it unchanged: the answers must not differ.
+    for (const kind of eventKinds) {
+      const log = caseLog();
+      const id = log.raw(1, kind, {});
+      const record = buildRecord(log.events);
+      const parsed = payloadSchemas[kind].safeParse({});
+      expect(record.timeline.find((e) => e.id === id)?.payload ?? null, kind).toEqual(parsed.success ? parsed.data : null);
+      expect(record.problems.some((p) => p.eventId === id && p.code === 'invalid_payload'), kind).toBe(!parsed.success);
+    }
+    // Not a plain object, or with a key zod reads: the schema decides.
+    const log = caseLog();
+    const inherited = log.raw(1, 'marking', Object.create({ extra: true }) as Record<string, unknown>);
+    const withKey = log.raw(2, 'incision', { extra: 1 });
+    const problems = buildRecord(log.events).problems.map((p) => [p.eventId, p.code]);
+    expect(problems).toEqual(expect.arrayContaining([[inherited, 'invalid_payload'], [withKey, 'invalid_payload']]));
   });
 
   it('leave a record even when the log is not a list', () => {
