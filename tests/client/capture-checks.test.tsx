@@ -51,12 +51,22 @@ describe('sign-out on the capture screen', () => {
     expect(within(clip as HTMLElement).getAllByRole('cell').map((c) => c.textContent)).toEqual(['clip-11', '3', '1', '1', '0', '1', '! 1']);
     expect(table.querySelector('[data-item="loop-30"]')).not.toHaveAttribute('data-flagged');
     expect(screen.getByText('1 item does not reconcile')).toBeInTheDocument();
+    expect(screen.queryByText('The scope is still in')).toBeNull();
 
     for (const group of screen.getAllByRole('radiogroup')) await userEvent.click(within(group).getByRole('radio', { name: 'Yes' }));
     await userEvent.click(screen.getByRole('button', { name: 'Sign out and close the record' }));
     await waitFor(() => expect(screen.getByTestId('sign-out-status')).toHaveAttribute('data-status', 'present'));
     expect(document.querySelector('[data-tap="clip-deployed"]')).toBeDisabled();
     await eventually(() => expect(server.log(caseId).at(-1)?.kind).toBe('sign_out'));
+  });
+
+  it('warns that the scope is still in before the record is closed, since a scope out is refused after', async () => {
+    const { caseId, server } = await openTablet();
+    server.storeFromElsewhere(caseId, [buildEvent('scope_in', { caseId, device: 'tablet-other', deviceTime: now(), payload: {} })]);
+    await waitFor(() => expect(screen.getByTestId('recent-events').querySelectorAll('li')).toHaveLength(1));
+    await userEvent.click(screen.getByTestId('sign-out-status'));
+    expect(screen.getByText('The scope is still in')).toBeInTheDocument();
+    expect(screen.getByText(/a scope out tapped later is\s+refused/)).toBeInTheDocument();
   });
 });
 

@@ -99,6 +99,24 @@ describe('the time-out', () => {
   });
 });
 
+describe('the sign-out', () => {
+  it('is flagged when recorded while the scope was in, not when the scope came out first or at the same moment', () => {
+    const log = caseLog();
+    log.tap(0, 'time_out', { items: [] });
+    log.tap(1, 'scope_in', {});
+    log.tap(20, 'sign_out', { items: [] });
+    const early = buildRecord(log.events);
+    expect(early.flags).toEqual([{ code: 'sign_out_scope_in', message: 'the sign-out was recorded while the scope was in', ref: early.signOut.eventId }]);
+
+    const inOrder = caseLog();
+    inOrder.tap(0, 'time_out', { items: [] });
+    inOrder.tap(1, 'scope_in', {});
+    inOrder.tap(20, 'scope_out', {});
+    inOrder.tap(20, 'sign_out', { items: [] });
+    expect(buildRecord(inOrder.events).flags).toEqual([]);
+  });
+});
+
 describe('the specimen and the computed notes', () => {
   it('give the ellipse area and the resection speed', () => {
     const log = scopedCase();

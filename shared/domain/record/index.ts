@@ -94,15 +94,16 @@ export function buildRecord(events: readonly RecordEventInput[] | unknown, optio
     const bleeds = bleedPass.finish(scopes, problems);
     const devices = devicePass.finish();
     const timeOut = checkRecord(by.timeOut, 'time_out');
+    const signOut = checkRecord(by.signOut, 'sign_out');
     const specimenList = specimens(by.specimens);
     const specimen = specimenSummary(specimenList, phaseList);
     return {
       timeline, voided, amendmentsApplied, scopeIntervals: scopes, phases: phaseList,
       totalMinutes: phaseList.find((p) => p.name === 'total')?.minutes ?? null,
       idleGaps: gaps.finish(), bleeds, devices, counts: counter.finish(bleeds),
-      resection: resectionOutcome(by.resection), timeOut, signOut: checkRecord(by.signOut, 'sign_out'),
+      resection: resectionOutcome(by.resection), timeOut, signOut,
       specimens: specimenList, specimen, notes: computedNotes(by.notes, specimenList, specimen),
-      flags: recordFlags(bleeds, devices, timeOut, scopes), problems: problems.sort(problemOrder),
+      flags: recordFlags(bleeds, devices, timeOut, scopes, signOut), problems: problems.sort(problemOrder),
     };
   } catch (error) {
     // A safety net: the record must be built whatever the log holds. Reaching it is a bug to report.

@@ -132,7 +132,7 @@ export type ComputedNote = {
   caution: string;
 };
 
-export type FlagCode = 'bleed_open_at_scope_out' | 'device_unaccounted' | 'time_out_missing' | 'time_out_skipped' | 'time_out_after_scope_in';
+export type FlagCode = 'bleed_open_at_scope_out' | 'device_unaccounted' | 'time_out_missing' | 'time_out_skipped' | 'time_out_after_scope_in' | 'sign_out_scope_in';
 export type RecordFlag = { code: FlagCode; message: string; ref: string | null };
 
 export type ProblemCode =

@@ -27,6 +27,7 @@ export function SignOutSheet({ open, onClose, record, itemLabel, onRecord }: Pro
   const done = allAnswered(signOutItems, value);
   const unaccounted = record.devices.filter((d) => d.flagged);
   const openBleeds = record.bleeds.filter((b) => b.controlledMs === null);
+  const scopeIn = record.scopeIntervals.at(-1)?.outMs === null;
   return (
     <Dialog open={open} onClose={onClose} title="Sign-out and close the record" placement="sheet">
       <div className="flex max-h-[70dvh] flex-col gap-3 overflow-y-auto">
@@ -61,6 +62,12 @@ export function SignOutSheet({ open, onClose, record, itemLabel, onRecord }: Pro
             </Banner>
           )}
         </section>
+        {scopeIn && (
+          <Banner tone="danger" title="The scope is still in">
+            Record scope out first. Once signed out the record takes only amendments: a scope out tapped later is
+            refused, and the total time stays unknown.
+          </Banner>
+        )}
         {openBleeds.length > 0 && (
           <Banner tone="caution" title={`${openBleeds.length} bleed${openBleeds.length > 1 ? 's' : ''} without recorded haemostasis`}>
             The record will flag {openBleeds.length > 1 ? 'them' : 'it'} as open.
