@@ -19,12 +19,13 @@ export const handle: RouteHandle = { themeScope: 'capture' };
 
 export async function loader(args: LoaderFunctionArgs) {
   await requireCan(args, 'event.record');
-  if (args.params.id) void queryClient.prefetchQuery(caseQueryOptions(args.params.id));
+  if (args.params.id) void queryClient.prefetchQuery(caseQueryOptions(args.params.id.toLowerCase()));
   return null;
 }
 
 export function Component() {
-  const { id = '' } = useParams();
+  // In lower case, as the server keeps ids: the tablet matches the events it hears by the case id.
+  const id = (useParams().id ?? '').toLowerCase();
   const me = useMe();
   const summary = useCase(id).data ?? null;
   // The devices feature's scan field as the sheet's item control, one component identity per case.
