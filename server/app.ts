@@ -2,6 +2,7 @@ import express, { type Express, type Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { toNodeHandler } from 'better-auth/node';
+import { compileTrustProxy } from './http/client-address.ts';
 import { clientRouter } from './http/client.ts';
 import type { ApiContext, AppDeps } from './http/context.ts';
 import { apiNotFound, errorHandler } from './http/errors.ts';
@@ -34,6 +35,8 @@ const JSON_LIMIT = '1mb';
 export function createApp(deps: AppDeps): Express {
   const { config, auth, logger } = deps;
   const app = express();
+  // req.ip (the audit log's address, the sign-in limiter's key) believes only the proxies named.
+  app.set('trust proxy', compileTrustProxy(config.TRUST_PROXY));
   const s3 = new URL(config.S3_ENDPOINT).origin;
   const https = config.BETTER_AUTH_URL.startsWith('https:');
   app.use(helmet({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { compileTrustProxy } from './http/client-address.ts';
 
 /**
  * Every setting of the server, read once from the environment. Defaults are the local set-up that
@@ -30,6 +31,14 @@ const envSchema = z.object({
    * read the cases whose rooms they are in (server/realtime/rights.ts).
    */
   RIGHTS_CHECK_MS: z.coerce.number().int().min(50).default(15_000),
+  /**
+   * Which proxies in front of the server to believe about the client's address (X-Forwarded-For): unset,
+   * none; a number, that many hops; else a list such as `loopback` or `10.0.0.0/8` (server/http/client-address.ts).
+   * The address is what the audit log writes and what failed sign-ins are counted by.
+   */
+  TRUST_PROXY: z.string().optional().superRefine((value, ctx) => {
+    try { compileTrustProxy(value); } catch (err) { ctx.addIssue({ code: 'custom', message: (err as Error).message }); }
+  }),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 

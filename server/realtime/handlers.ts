@@ -2,6 +2,7 @@ import type { Logger } from 'pino';
 import type { Socket } from 'socket.io';
 import type { Auth } from '../auth.ts';
 import type { Db } from '../db/client.ts';
+import { clientAddress, type TrustProxy } from '../http/client-address.ts';
 import { insertAudit } from '../modules/audit/queries.ts';
 import { caseAccess, isDenied, recordDenial, type AccessDenied } from '../modules/events/access.ts';
 import { announceRecorded } from '../modules/events/recorded.ts';
@@ -13,7 +14,7 @@ import {
 import { handle, SyncRefusal, syncError } from './guard.ts';
 import { currentUser, type SocketData } from './session.ts';
 
-export type HandlerDeps = { db: Db; auth: Auth; logger: Logger };
+export type HandlerDeps = { db: Db; auth: Auth; logger: Logger; trustProxy: TrustProxy };
 
 const refusal = (d: AccessDenied) => new SyncRefusal(syncError(d.code, d.message));
 
@@ -21,7 +22,7 @@ const refusal = (d: AccessDenied) => new SyncRefusal(syncError(d.code, d.message
 const SMALL_MESSAGE_BYTES = 4 * 1024;
 
 /** The sync protocol of one socket (shared/contracts/sync.ts). */
-export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDeps): void {
+export function registerHandlers(socket: Socket, { db, auth, logger, trustProxy }: HandlerDeps): void {
   const small = { maxBytes: SMALL_MESSAGE_BYTES, logger };
 
   // Join a case room, then read: an event committed in between arrives twice (the client keeps one), never zero times.
@@ -37,7 +38,7 @@ export function registerHandlers(socket: Socket, { db, auth, logger }: HandlerDe
     const { viewed } = socket.data as SocketData;
     if (!viewed.has(caseId)) {
       await insertAudit(db, {
-        action: 'record.view', entityType: 'case', entityId: caseId, userId, unitId: access.unitId, ip: socket.handshake.address,
+        action: 'record.view', entityType: 'case', entityId: caseId, userId, unitId: access.unitId, ip: clientAddress(socket.request, trustProxy),
         detail: { via: 'sync', afterSeq, events: page.events.length },
       });
       viewed.add(caseId);

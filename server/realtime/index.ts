@@ -5,6 +5,7 @@ import { z } from 'zod';
 import type { Auth } from '../auth.ts';
 import type { Config } from '../config.ts';
 import type { Db } from '../db/client.ts';
+import { compileTrustProxy } from '../http/client-address.ts';
 import { rowToStored } from '../modules/events/intake.ts';
 import { eventsBetween } from '../modules/events/queries.ts';
 import { onRecorded } from '../modules/events/recorded.ts';
@@ -60,7 +61,8 @@ export async function createRealtime(httpServer: HttpServer, { db, auth, config,
   const adapter = await attachPostgresAdapter(io, config.DATABASE_URL, log);
 
   io.use(requireSession(auth));
-  io.on('connection', (socket) => registerHandlers(socket, { db, auth, logger: log }));
+  const trustProxy = compileTrustProxy(config.TRUST_PROXY);
+  io.on('connection', (socket) => registerHandlers(socket, { db, auth, logger: log, trustProxy }));
   const stopRightsCheck = startRightsCheck(() => [...io.of('/').sockets.values()], db, config.RIGHTS_CHECK_MS, log);
 
   // A plain io.to(room).emit() with the adapter waits for its NOTIFY to PostgreSQL before it writes to

@@ -20,9 +20,9 @@ export async function startNode(t: TestContext, overrides: Partial<TestContext['
   return node;
 }
 
-/** A tablet's socket with a session cookie, connected (rejects with the refusal when not allowed in). */
-export async function tablet(url: string, cookie?: string): Promise<TestSocket> {
-  const socket: TestSocket = connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: cookie ? { cookie } : {} });
+/** A tablet's socket with a session cookie (and any other headers), connected (rejects with the refusal when not allowed in). */
+export async function tablet(url: string, cookie?: string, headers: Record<string, string> = {}): Promise<TestSocket> {
+  const socket: TestSocket = connect(url, { transports: ['websocket'], reconnection: false, extraHeaders: { ...headers, ...(cookie ? { cookie } : {}) } });
   sockets.push(socket);
   await new Promise<void>((resolve, reject) => {
     socket.once('connect', () => resolve());
