@@ -2,7 +2,7 @@ import express, { type Express, type Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { toNodeHandler } from 'better-auth/node';
-import { compileTrustProxy } from './http/client-address.ts';
+import { compileTrustProxy, setClientAddressHeader } from './http/client-address.ts';
 import { clientRouter } from './http/client.ts';
 import type { ApiContext, AppDeps } from './http/context.ts';
 import { apiNotFound, errorHandler } from './http/errors.ts';
@@ -56,6 +56,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') } }));
 
   // better-auth reads the raw body itself: mounted before express.json() (STACK.md).
+  app.use('/api/auth', setClientAddressHeader);
   app.post('/api/auth/sign-in/email', signInLimiter(deps.signInLimit ?? { windowMs: 15 * 60_000, limit: 10 }));
   app.all('/api/auth/*splat', toNodeHandler(auth));
 

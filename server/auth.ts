@@ -6,6 +6,7 @@ import { adminAc, defaultStatements } from 'better-auth/plugins/organization/acc
 import type { Logger } from 'pino';
 import type { Config } from './config.ts';
 import type { Db } from './db/client.ts';
+import { CLIENT_ADDRESS_HEADER } from './http/client-address.ts';
 import type { Mailer } from './services/mail.ts';
 import { permissionMatrix, statements } from '#shared/domain/permissions.ts';
 import { roles, roleSchema, type Role } from '#shared/schemas/common.ts';
@@ -92,7 +93,8 @@ export function createAuth({ db, config, mailer, logger }: AuthDeps) {
     trustedOrigins: [appUrl],
     database: drizzleAdapter(db, { provider: 'pg' }),
     // Ids are UUIDs (gen_random_uuid()): the unit id is a UUID on the wire, and invitation ids in mailed links are unguessable.
-    advanced: authSchemaOptions.advanced,
+    // The client's address as the app worked it out (TRUST_PROXY), not the first one a client wrote in X-Forwarded-For.
+    advanced: { ...authSchemaOptions.advanced, ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] } },
     emailAndPassword: {
       enabled: true,
       minPasswordLength: 10,

@@ -1,4 +1,5 @@
 import type { IncomingMessage } from 'node:http';
+import type { RequestHandler } from 'express';
 import proxyaddr from 'proxy-addr';
 
 /** Whether the hop `addr`, `i` steps from the server, is a proxy to believe about the client's address. */
@@ -25,3 +26,15 @@ export function compileTrustProxy(setting: string | undefined): TrustProxy {
 export function clientAddress(req: IncomingMessage, trust: TrustProxy): string {
   return proxyaddr(req, trust);
 }
+
+/**
+ * The header through which better-auth learns the client's address (for the sessions it records and its
+ * own limiter). By default it believes the first address of X-Forwarded-For, which any client can write;
+ * this header is set here from `req.ip`, over whatever the client sent.
+ */
+export const CLIENT_ADDRESS_HEADER = 'x-ledgerline-client-address';
+
+export const setClientAddressHeader: RequestHandler = (req, _res, next) => {
+  req.headers[CLIENT_ADDRESS_HEADER] = req.ip ?? '';
+  next();
+};

@@ -1,8 +1,9 @@
-import { and, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '#server/config.ts';
-import { auditLog } from '#server/db/schema/index.ts';
+import { auditLog, session } from '#server/db/schema/index.ts';
+import { CLIENT_ADDRESS_HEADER } from '#server/http/client-address.ts';
 import { asBrowser, buildMember, buildUnit, type TestMember } from './factories.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
 import { join, newCase, signedInTeam, startNode, stopAll, tablet } from './sync-helpers.ts';
@@ -19,6 +20,15 @@ describe('without TRUST_PROXY', () => {
     nurse = await buildMember(t, await buildUnit(t), 'nurse');
   });
   afterAll(() => t?.close());
+
+  it('records a new session with the connection\'s address, not the first address a client wrote', async () => {
+    const other = await buildMember(t, await buildUnit(t), 'nurse');
+    const res = await request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': '192.0.2.77', [CLIENT_ADDRESS_HEADER]: '192.0.2.78' })
+      .send({ email: other.email, password: other.password });
+    expect(res.status).toBe(200);
+    const [row] = await t.db.select({ ip: session.ipAddress }).from(session).where(eq(session.userId, other.id)).orderBy(desc(session.createdAt)).limit(1);
+    expect(row!.ip).toMatch(/127\.0\.0\.1$/);
+  });
 
   it('counts failed sign-ins by the connection\'s address, whatever X-Forwarded-For a client claims', async () => {
     const attempt = (claimed: string) => request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': claimed })
@@ -40,6 +50,15 @@ describe('with TRUST_PROXY naming the proxy', () => {
   afterAll(async () => {
     await stopAll();
     await t?.close();
+  });
+
+  it('records a new session with the client\'s address behind the proxy', async () => {
+    const other = await buildMember(t, await buildUnit(t), 'nurse');
+    const res = await request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': '198.51.100.1, 203.0.113.20' })
+      .send({ email: other.email, password: other.password });
+    expect(res.status).toBe(200);
+    const [row] = await t.db.select({ ip: session.ipAddress }).from(session).where(eq(session.userId, other.id)).orderBy(desc(session.createdAt)).limit(1);
+    expect(row!.ip).toBe('203.0.113.20');
   });
 
   it('counts failed sign-ins per client behind the proxy: one nurse\'s mistakes do not lock out the others', async () => {
