@@ -4,11 +4,7 @@ import { can } from '#shared/domain/permissions.ts';
 import type { Me } from '#shared/schemas/session.ts';
 import { ApiError } from '@/lib/api.ts';
 import { queryClient } from '@/lib/query-client.ts';
-import { meQueryOptions } from '@/lib/session.ts';
-
-export function signInPath(url: URL): string {
-  return `/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`;
-}
+import { meQueryOptions, signInPath } from '@/lib/session.ts';
 
 /**
  * The signed-in part of the app: loads /api/me (or, offline, the copy kept on the tablet); a signed-out

@@ -1,9 +1,7 @@
 import { createBrowserRouter, redirect } from 'react-router';
 import { ApiError } from '@/lib/api.ts';
 import { queryClient } from '@/lib/query-client.ts';
-import { clearMe } from '@/lib/session-cache.ts';
-import { meQueryKey } from '@/lib/session.ts';
-import { signInPath } from './guard.ts';
+import { signInAgain } from '@/lib/session.ts';
 import { HydrateFallback, RootLayout, RouteError } from './routes/root.tsx';
 
 /**
@@ -53,7 +51,5 @@ queryClient.getQueryCache().subscribe((event) => {
   if (!(err instanceof ApiError) || !err.isUnauthorised || router.state.navigation.state !== 'idle') return;
   const { pathname } = router.state.location;
   if (publicPaths.some((p) => pathname.startsWith(p))) return;
-  clearMe();
-  // Leave the signed-in screens first: they read the user that is about to be removed.
-  void router.navigate(signInPath(new URL(window.location.href)), { replace: true }).then(() => queryClient.removeQueries({ queryKey: meQueryKey }));
+  void signInAgain((to, options) => router.navigate(to, options));
 });

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { meSchema, type Me } from '#shared/schemas/session.ts';
 import { api, ApiError, NetworkError } from './api.ts';
+import { queryClient } from './query-client.ts';
 import { clearMe, loadMe, saveMe } from './session-cache.ts';
 
 /**
@@ -35,4 +36,22 @@ export function useMe(): Me {
   const { data } = useQuery(meQueryOptions());
   if (!data) throw new Error('useMe() used outside the signed-in routes');
   return data;
+}
+
+/** The sign-in page, coming back to `url` afterwards. */
+export function signInPath(url: URL): string {
+  return `/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`;
+}
+
+type Navigate = (to: string, options: { replace: boolean }) => Promise<void> | void;
+
+/**
+ * The session ended elsewhere (expired, revoked, signed out on another page): forget the saved user and
+ * go to sign-in, coming back to this address afterwards. The user's queries are removed only once the
+ * signed-in screens are left, since they read the user.
+ */
+export async function signInAgain(navigate: Navigate): Promise<void> {
+  clearMe();
+  await navigate(signInPath(new URL(window.location.href)), { replace: true });
+  queryClient.removeQueries({ queryKey: meQueryKey });
 }

@@ -1,4 +1,4 @@
-import { caseJoinAckSchema, eventsRecordedSchema, isSyncError, okAckSchema, SyncMessages } from '#shared/contracts/sync.ts';
+import { caseJoinAckSchema, eventsRecordedSchema, isSyncError, okAckSchema, SyncMessages, type SyncError } from '#shared/contracts/sync.ts';
 import { statusAfterEvent } from '#shared/domain/case-status.ts';
 import type { CaseStatus } from '#shared/schemas/cases.ts';
 import type { StoredEvent } from '#shared/schemas/events.ts';
@@ -28,7 +28,8 @@ type Deps = {
   /** The engine's outbox entries: an event accepted by the server leaves it here. */
   entries: Map<string, Pending>;
   changed: (caseId?: string) => void;
-  onError: (message: string) => void;
+  /** A problem in words; `code` when the server answered with an error (an 'unauthorized' ends the session). */
+  onError: (message: string, code?: SyncError['code']) => void;
 };
 
 /**
@@ -98,7 +99,12 @@ export class CaseRegistry {
     try {
       for (;;) {
         const ack = await request(this.d.socket, SyncMessages.caseJoin, { caseId, afterSeq: c.contiguousSeq }, caseJoinAckSchema, this.d.ackTimeoutMs);
-        if (isSyncError(ack)) { c.error = ack.error; this.d.changed(caseId); return; }
+        if (isSyncError(ack)) {
+          c.error = ack.error;
+          if (ack.code === 'unauthorized') this.d.onError(ack.error, ack.code);
+          this.d.changed(caseId);
+          return;
+        }
         c.error = null;
         c.status = statusSince(ack.status, ack.lastSeq, c.stored.values());
         await this.accept(caseId, ack.events);

@@ -1,5 +1,5 @@
 import { v7 as uuidv7 } from 'uuid';
-import { clockPingAckSchema, isSyncError, MAX_BATCH_EVENTS, SyncMessages } from '#shared/contracts/sync.ts';
+import { clockPingAckSchema, isSyncError, MAX_BATCH_EVENTS, SyncMessages, type SyncError } from '#shared/contracts/sync.ts';
 import { newEventSchema, type EventKind, type NewEvent, type NewEventOf, type PayloadOf } from '#shared/schemas/events.ts';
 import type { CaseSnapshot } from './case-view.ts';
 import { CaseRegistry, type Pending } from './cases.ts';
@@ -52,6 +52,7 @@ export class SyncEngine {
   private readonly sampler;
   private clock: SyncStatus['clock'] = null;
   private lastError: string | null = null;
+  private sessionEnded = false;
   private lastWrite: WriteReceipt | null = null;
   private stopped = false;
   /** Closed at a sign-out, until the next sign-in. */
@@ -67,7 +68,12 @@ export class SyncEngine {
     this.now = opts.now ?? (() => Date.now());
     this.storage = openSyncStorage(opts.dbName);
     const ackTimeoutMs = opts.ackTimeoutMs ?? 10_000;
-    const onError = (message: string) => { this.lastError = message; this.changed(); };
+    const onError = (message: string, code?: SyncError['code']) => {
+      this.lastError = message;
+      // The socket holds the ended session: the next sign-in, even of the same user, connects again.
+      if (code === 'unauthorized') { this.sessionEnded = true; this.signedOutSocket = true; }
+      this.changed();
+    };
     this.cases = new CaseRegistry({ socket: this.socket, storage: this.storage, ackTimeoutMs, entries: this.entries, changed: (id) => this.changed(id), onError });
     this.pusher = new Pusher({
       socket: this.socket, storage: this.storage, entries: this.entries, cases: this.cases, ackTimeoutMs, onError,
@@ -77,7 +83,7 @@ export class SyncEngine {
     });
     this.status = createObservable(() => buildStatus({
       connected: this.socket.connected, pushing: this.pusher.pushing, entries: [...this.entries.values()],
-      clock: this.clock, lastError: this.lastError, lastWrite: this.lastWrite,
+      clock: this.clock, lastError: this.lastError, sessionEnded: this.sessionEnded, lastWrite: this.lastWrite,
     }));
     this.sampler = createClockSampler({
       ...opts.clock,
@@ -105,6 +111,7 @@ export class SyncEngine {
     const s = this.socket;
     s.on('connect', () => {
       this.lastError = null;
+      this.sessionEnded = false;
       this.changed();
       void this.sampler.start();
       this.cases.joinOpen();
@@ -116,11 +123,17 @@ export class SyncEngine {
       // reconnect after that, and the next sign-in, even of the same user, must.
       if (reason === 'io server disconnect' && !this.stopped) {
         this.signedOutSocket = true;
+        this.sessionEnded = true;
         this.lastError = 'The server ended this connection: your session has ended; sign in again';
       }
       this.changed();
     });
-    s.on('connect_error', (err) => { this.lastError = err.message; this.changed(); });
+    s.on('connect_error', (err) => {
+      this.lastError = err.message;
+      // The handshake was refused for want of a session (server/realtime/session.ts), not for the network.
+      if ((err as { data?: { code?: unknown } }).data?.code === 'unauthorized') this.sessionEnded = true;
+      this.changed();
+    });
     s.on(SyncMessages.eventsRecorded, (msg) => this.cases.onRecorded(msg));
     this.changed();
     if (!this.stopped) s.connect();

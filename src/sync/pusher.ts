@@ -15,7 +15,8 @@ type Deps = {
   batchSize: number;
   retryDelaysMs: readonly number[];
   changed: (caseId?: string) => void;
-  onError: (message: string) => void;
+  /** A problem in words; `code` when the server answered with an error (an 'unauthorized' ends the session). */
+  onError: (message: string, code?: SyncError['code']) => void;
 };
 
 /** Whole-push errors after which the same push would fail again: its events are refused for a person to see. */
@@ -116,7 +117,7 @@ export class Pusher {
       await this.apply(caseId, batch, ack.results);
       return true;
     }
-    this.d.onError(ack.error);
+    this.d.onError(ack.error, ack.code);
     if (ack.code === 'too_large' && batch.length > 1) {
       this.batchSize = Math.max(1, Math.floor(batch.length / 2)); // send it in halves
       this.requeue(batch);

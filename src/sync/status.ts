@@ -16,6 +16,11 @@ export type SyncStatus = {
   clock: { offsetMs: number; uncertaintyMs: number } | null;
   /** The last connection or push problem, in words; cleared at the next connect. */
   lastError: string | null;
+  /**
+   * The server said this tablet's session has ended (at a handshake, a push or a join, or by closing the
+   * socket): taps stay queued here until someone signs in again. Cleared at the next connect.
+   */
+  sessionEnded: boolean;
   /** The last outbox write: the durability asked of IndexedDB and the time it took to commit. */
   lastWrite: WriteReceipt | null;
 };
@@ -26,6 +31,7 @@ type Inputs = {
   entries: readonly (OutboxEntry & { live: TapState })[];
   clock: SyncStatus['clock'];
   lastError: string | null;
+  sessionEnded: boolean;
   lastWrite: WriteReceipt | null;
 };
 
@@ -35,5 +41,5 @@ export function buildStatus(i: Inputs): SyncStatus {
     .map((p) => ({ id: p.event.id, event: p.event, reason: p.reason ?? 'Refused' }));
   const waiting = i.entries.length - refused.length;
   const state = !i.connected ? 'offline' : i.pushing || waiting > 0 ? 'syncing' : 'online';
-  return { state, connected: i.connected, waiting, refused, clock: i.clock, lastError: i.lastError, lastWrite: i.lastWrite };
+  return { state, connected: i.connected, waiting, refused, clock: i.clock, lastError: i.lastError, sessionEnded: i.sessionEnded, lastWrite: i.lastWrite };
 }

@@ -113,3 +113,25 @@ describe('events the server refuses', () => {
     expect((server.log(caseId)[0]!.payload as { text: string }).text).toContain('Tapped by mistake');
   });
 });
+
+describe('a session that ended elsewhere', () => {
+  it('shows "Signed out" with the taps kept here, not "Offline", and offers to sign in again', async () => {
+    const s = await startTestSyncServer();
+    server = s;
+    // As the server does once a session has ended: a push over the socket is answered 'unauthorized'.
+    s.io.on('connection', (socket) => socket.prependListener('events.push', (_msg: unknown, ack: (a: unknown) => void) => {
+      ack({ error: 'Your session has ended; sign in again', code: 'unauthorized' });
+    }));
+    const caseId = newCaseId();
+    const engine = startTablet(s.url, { dbName: newDbName() });
+    await engine.ready;
+    renderCapture(engine, caseId);
+    await waitFor(() => expect(screen.getByTestId('connection')).toHaveAttribute('data-state', 'online'));
+    await tap('clip-deployed');
+    await waitFor(() => expect(screen.getByTestId('connection')).toHaveAttribute('data-state', 'signed-out'));
+    expect(screen.getByRole('status')).toHaveTextContent('Signed out· 1 waiting');
+    await userEvent.click(screen.getByRole('button', { name: 'Sign in again' }));
+    expect(screen.getByTestId('location').textContent).toMatch(/^\/sign-in\?next=/);
+  });
+});
+

@@ -1,12 +1,18 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render } from '@testing-library/react';
-import { MemoryRouter } from 'react-router';
+import { MemoryRouter, useLocation } from 'react-router';
 import { CaptureScreen } from '@/features/capture/components/capture-screen.tsx';
 import type { ItemControl } from '@/features/capture/components/detail-fields.tsx';
 import { ToastProvider } from '@/components/ui/toast.tsx';
 import { SyncProvider } from '@/sync/react.ts';
 import type { SyncEngine } from '@/sync/index.ts';
 import { buildCase } from './shell-factories.ts';
+
+/** Where the router is now, for a test to read (`data-testid="location"`). */
+function LocationProbe() {
+  const { pathname, search } = useLocation();
+  return <output data-testid="location" hidden>{pathname + search}</output>;
+}
 
 /**
  * The capture screen of `caseId` on one "tablet" (a real sync engine over fake IndexedDB), with the
@@ -27,6 +33,7 @@ export function renderCapture(engine: SyncEngine, caseId: string, ItemInput?: It
           <SyncProvider engine={engine}>
             <CaptureScreen caseId={caseId} summary={summary} ItemInput={ItemInput} />
           </SyncProvider>
+          <LocationProbe />
         </ToastProvider>
       </MemoryRouter>
     </QueryClientProvider>,

@@ -144,12 +144,28 @@ describe('live sync between tablets', () => {
 
     // The session was ended on another page; the server's rights check closes the socket.
     server.io.disconnectSockets(true);
-    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ connected: false, state: 'offline', lastError: expect.stringMatching(/sign in again/) }));
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ connected: false, state: 'offline', sessionEnded: true, lastError: expect.stringMatching(/sign in again/) }));
     const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
     expect(tablet.status.getSnapshot().waiting).toBe(1);
 
     tablet.setAuthor(author); // the same nurse signs in again
     await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
-    expect(tablet.status.getSnapshot().lastError).toBeNull();
+    expect(tablet.status.getSnapshot()).toMatchObject({ lastError: null, sessionEnded: false });
+  });
+
+  it('takes a push answered "unauthorized" as an ended session, and connects again at the next sign-in of the same user', async () => {
+    server = await startTestSyncServer();
+    const endSessions = endingSessions(server);
+    const caseId = newCaseId();
+    const author = 'user-test-nurse-one';
+    const tablet = startTablet(server.url, { dbName: newDbName(), author });
+    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+
+    endSessions(); // expired, say, with the socket still open
+    const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ sessionEnded: true, waiting: 1 }));
+    tablet.setAuthor(author); // the same nurse signs in again: a new handshake, with the new session
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    expect(tablet.status.getSnapshot().sessionEnded).toBe(false);
   });
 });

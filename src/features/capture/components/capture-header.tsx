@@ -51,10 +51,10 @@ export const CaptureHeader = memo(function CaptureHeader({ caseId, summary, cloc
   );
 });
 
-type ConnectionView = Pick<SyncStatus, 'state' | 'waiting' | 'lastError'> & { refused: number };
-const connectionView = (s: SyncStatus): ConnectionView => ({ state: s.state, waiting: s.waiting, refused: s.refused.length, lastError: s.lastError });
+type ConnectionView = Pick<SyncStatus, 'state' | 'waiting' | 'lastError' | 'sessionEnded'> & { refused: number };
+const connectionView = (s: SyncStatus): ConnectionView => ({ state: s.state, waiting: s.waiting, refused: s.refused.length, lastError: s.lastError, sessionEnded: s.sessionEnded });
 const sameConnection = (a: ConnectionView, b: ConnectionView) =>
-  a.state === b.state && a.waiting === b.waiting && a.refused === b.refused && a.lastError === b.lastError;
+  a.state === b.state && a.waiting === b.waiting && a.refused === b.refused && a.lastError === b.lastError && a.sessionEnded === b.sessionEnded;
 
 /**
  * The connection strip, subscribed to the sync status on its own: only a change of what it shows
