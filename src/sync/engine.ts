@@ -131,7 +131,8 @@ export class SyncEngine {
     s.on('connect_error', (err) => {
       this.lastError = err.message;
       // The handshake was refused for want of a session (server/realtime/session.ts), not for the network.
-      if ((err as { data?: { code?: unknown } }).data?.code === 'unauthorized') this.sessionEnded = true;
+      // Socket.IO does not retry a refusal: the next sign-in, even of the same user, connects again.
+      if ((err as { data?: { code?: unknown } }).data?.code === 'unauthorized') { this.sessionEnded = true; this.signedOutSocket = true; }
       this.changed();
     });
     s.on(SyncMessages.eventsRecorded, (msg) => this.cases.onRecorded(msg));

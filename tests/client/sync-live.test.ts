@@ -168,4 +168,21 @@ describe('live sync between tablets', () => {
     await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
     expect(tablet.status.getSnapshot().sessionEnded).toBe(false);
   });
+
+  it('takes a refused handshake as an ended session, and connects at the next sign-in of the same user', async () => {
+    server = await startTestSyncServer();
+    let refusing = true;
+    // As the server's handshake check does (server/realtime/session.ts) when the cookie's session is gone.
+    server.io.use((_socket, next) => next(refusing ? Object.assign(new Error('Sign in first'), { data: { code: 'unauthorized' } }) : undefined));
+    const caseId = newCaseId();
+    const author = 'user-test-nurse-one';
+    const tablet = startTablet(server.url, { dbName: newDbName(), author });
+    await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ connected: false, sessionEnded: true, lastError: 'Sign in first' }));
+    const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
+
+    refusing = false;
+    tablet.setAuthor(author); // signed in again
+    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    expect(tablet.status.getSnapshot().sessionEnded).toBe(false);
+  });
 });
