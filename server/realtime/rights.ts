@@ -34,7 +34,9 @@ export async function checkRights(sockets: readonly Socket[], db: Db): Promise<{
     closed++;
   }
 
-  const caseIds = [...new Set(open.flatMap(casesOf))];
+  // The rooms as they are before the read: a room joined while it runs passed its own access check then.
+  const heard = new Map(open.map((s) => [s, casesOf(s)]));
+  const caseIds = [...new Set([...heard.values()].flat())];
   if (!caseIds.length) return { closed, left: 0 };
   const userIds = [...new Set(open.map((s) => (s.data as SocketData).userId))];
   // Every member of a case's unit with one of the roles may read its record (caseAccess in access.ts).
@@ -43,9 +45,9 @@ export async function checkRights(sockets: readonly Socket[], db: Db): Promise<{
     .where(and(inArray(cases.id, caseIds), inArray(member.userId, userIds), inArray(member.role, [...roles])));
   const may = new Set(readable.map((r) => `${r.userId} ${r.caseId}`));
   let left = 0;
-  for (const s of open) {
+  for (const [s, rooms] of heard) {
     const { userId } = s.data as SocketData;
-    for (const caseId of casesOf(s)) {
+    for (const caseId of rooms) {
       if (may.has(`${userId} ${caseId}`)) continue;
       await s.leave(caseRoom(caseId));
       left++;

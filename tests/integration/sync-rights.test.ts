@@ -1,5 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type { Db } from '#server/db/client.ts';
+import { checkRights } from '#server/realtime/rights.ts';
 import type { RunningServer } from '#server/server.ts';
 import { member } from '#server/db/schema/index.ts';
 import { caseRoom } from '#shared/contracts/sync.ts';
@@ -65,6 +67,55 @@ describe('the rights of a socket that only listens', () => {
     await eventually(() => expect(heard.map((m) => m.caseId)).toEqual([ownCase]));
     // And joining the case again is refused like any case of another unit.
     expect(await join(s, caseId)).toMatchObject({ code: 'not_found' });
+  });
+});
+
+/**
+ * `db` whose second query (checkRights' read of who may read which case) waits for `release` once it
+ * is sent for, and says so through `reached`: what a socket does meanwhile happens during the check.
+ */
+function pausingSecondRead(db: Db) {
+  let reads = 0;
+  let release!: () => void;
+  let reached!: () => void;
+  const released = new Promise<void>((r) => { release = r; });
+  const reachedP = new Promise<void>((r) => { reached = r; });
+  const gated = <T extends object>(obj: T): T => new Proxy(obj, {
+    get(target, prop) {
+      const value = Reflect.get(target, prop, target) as unknown;
+      if (prop === 'then' && typeof value === 'function') {
+        return (ok: (v: unknown) => void, fail: (e: unknown) => void) => { reached(); return released.then(() => value.call(target, ok, fail)); };
+      }
+      if (typeof value !== 'function') return value;
+      return (...args: unknown[]) => {
+        const out = (value as (...a: unknown[]) => unknown).apply(target, args);
+        return out && typeof out === 'object' ? gated(out) : out;
+      };
+    },
+  });
+  const paused = new Proxy(db, {
+    get(target, prop) {
+      if (prop !== 'select') return Reflect.get(target, prop, target) as unknown;
+      return (...args: Parameters<Db['select']>) => (++reads === 2 ? gated(target.select(...args)) : target.select(...args));
+    },
+  });
+  return { db: paused, reached: reachedP, release };
+}
+
+describe('the rights check racing a join', () => {
+  it('leaves alone a room joined while it reads who may read which case', async () => {
+    const quiet = await startNode(t, { RIGHTS_CHECK_MS: 3_600_000 }); // no round of its own in this test
+    const [first, second] = [await newCase(t, team), await newCase(t, team)];
+    const s = await tablet(quiet.url, team.cookies.supervisor);
+    await join(s, first);
+    const pause = pausingSecondRead(t.db);
+    const check = checkRights([...quiet.io.of('/').sockets.values()], pause.db);
+    await pause.reached;
+    await join(s, second); // its own access check passes now
+    pause.release();
+    expect(await check).toEqual({ closed: 0, left: 0 });
+    const rooms = quiet.io.of('/').adapter.rooms;
+    expect([rooms.get(caseRoom(first))?.has(s.id!), rooms.get(caseRoom(second))?.has(s.id!)]).toEqual([true, true]);
   });
 });
 
