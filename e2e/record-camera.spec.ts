@@ -9,8 +9,8 @@ import { openCapture, scheduleCase } from './capture-helpers.ts';
 
 /**
  * The camera path of the scan field, end to end: Chromium's fake camera plays a still frame of a GS1
- * DataMatrix (made with bwip-js), and the screen reads it with ZXing, as on a tablet whose browser has no
- * BarcodeDetector (headless Chromium on Linux has none).
+ * DataMatrix (made with bwip-js), and the screen reads it with ZXing in its worker, as on a tablet whose
+ * browser has no BarcodeDetector (headless Chromium on Linux has none).
  */
 const sofia = 'sofia.marin@kestrelbay.example';
 // The demo catalogue's 11 mm clip (server/db/seed/demo-data.ts, invented GTIN with a valid GS1 check digit).
