@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { and, eq } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import { auditLog } from '#server/db/schema/index.ts';
 import { asBrowser, buildUnit, signIn } from './factories.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
@@ -110,7 +110,8 @@ describe('case rooms', () => {
     const caseId = await newCase(t, team);
     const nurse = await tablet(nodeA, team.cookies.nurse);
     await push(nurse, caseId, [tap('scope_in', caseId, team.members.nurse.id), tap('marking', caseId, team.members.nurse.id)]);
-    const views = () => t.db.select().from(auditLog).where(and(eq(auditLog.entityId, caseId), eq(auditLog.action, 'record.view'), eq(auditLog.userId, team.members.supervisor.id)));
+    const views = () => t.db.select().from(auditLog).where(and(eq(auditLog.entityId, caseId), eq(auditLog.action, 'record.view'), eq(auditLog.userId, team.members.supervisor.id)))
+      .orderBy(asc(auditLog.id));
     const s = await tablet(nodeA, team.cookies.supervisor);
     expect(await join(s, caseId, 1)).toMatchObject({ events: [{ seq: 2 }] });
     await join(s, caseId, 2);
