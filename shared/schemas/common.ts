@@ -17,10 +17,18 @@ export const uuidV7Schema = z
   .regex(/^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/i, 'must be a UUIDv7')
   .toLowerCase();
 
-/** ISO 8601 date-time with an offset or Z, as sent on the wire. */
-export const isoDateTimeSchema = z.iso.datetime({ offset: true });
-/** ISO 8601 calendar date (YYYY-MM-DD). */
-export const isoDateSchema = z.iso.date();
+/**
+ * ISO 8601 date-time with an offset or Z, as sent on the wire, in the years 1 to 9999: ISO 8601 has a
+ * year 0000 (1 BC), which PostgreSQL's calendar does not, and an offset can move a time into it.
+ */
+export const isoDateTimeSchema = z.iso.datetime({ offset: true }).refine((s) => {
+  const ms = Date.parse(s);
+  if (Number.isNaN(ms)) return true; // not a date-time at all: the format's own issue says so
+  const year = new Date(ms).getUTCFullYear();
+  return year >= 1 && year <= 9999;
+}, 'Must fall in the years 1 to 9999');
+/** ISO 8601 calendar date (YYYY-MM-DD), from the year 1 (there is no year 0 in PostgreSQL's calendar). */
+export const isoDateSchema = z.iso.date().refine((s) => !/^\d{4}-/.test(s) || Number(s.slice(0, 4)) >= 1, 'Must fall in the years 1 to 9999');
 
 /** The JSON body of every error answer: a message and, for a bad request, the fields at fault. */
 export const apiErrorSchema = z.object({

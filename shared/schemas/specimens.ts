@@ -24,7 +24,8 @@ export const handoffStatusLabels: Record<HandoffStatus, string> = {
 };
 
 const blankToNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : v);
-const mm = z.number().positive('Must be more than 0 mm').max(1000, 'At most 1000 mm');
+// From 0.1 mm, a ruler's finest reading (common practice); far smaller values also fall outside the column's float4 range.
+const mm = z.number().min(0.1, 'At least 0.1 mm').max(1000, 'At most 1000 mm');
 
 const fields = {
   /** The team's name for the specimen, as written on the container ("A", "B — margin"). */

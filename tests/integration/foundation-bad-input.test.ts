@@ -35,6 +35,12 @@ describe('POST /api/cases with a bad body', () => {
     ['an unknown sedation', (x) => ({ ...x, sedation: 'none' }), ['sedation']],
     ['no team at all', ({ endoscopistId: _e, nurseId: _n, ...x }) => x, ['endoscopistId', 'nurseId']],
     ['an endoscopist id that is no UUID', (x) => ({ ...x, endoscopistId: 'dr-osei' }), ['endoscopistId']],
+    // ISO 8601 has a year 0000 (1 BC); PostgreSQL's calendar does not.
+    ['a date of birth in year 0', (x) => ({ ...x, patient: { ...x.patient, birthDate: '0000-06-15' } }), ['patient.birthDate']],
+    ['a start time in year 0', (x) => ({ ...x, scheduledAt: '0000-01-01T09:00:00Z' }), ['scheduledAt']],
+    // Text PostgreSQL cannot store as sent: a NUL, and half of a UTF-16 surrogate pair (stored as U+FFFD before).
+    ['a NUL character in the indication', (x) => ({ ...x, indication: 'Lateral \u0000 lesion' }), ['indication']],
+    ['half a surrogate pair in the indication', (x) => ({ ...x, indication: 'Lateral \ud800 lesion' }), ['indication']],
   ];
   it.each(bad)('names the field for %s', async (_what, change, expected) => {
     const res = await request(t.app).post('/api/cases').set(asBrowser(nurse)).send(change(scheduleInput(unit, team)) as object);
@@ -73,6 +79,8 @@ describe('bad query strings and paths', () => {
     ['a missing hospital number', '/api/patients', ['hospitalNumber']],
     ['an audit page size too large', '/api/audit?limit=100000', ['limit']],
     ['an invitation id that is no UUID', '/api/invitations/abc', ['id']],
+    ['a day in year 0', '/api/cases?date=0000-01-01', ['date']],
+    ['a NUL character in a hospital number', '/api/patients?hospitalNumber=%00', ['hospitalNumber']],
   ];
   it.each(bad)('names the parameter for %s', async (_what, path, expected) => {
     const cookie = path.startsWith('/api/audit') ? admin : nurse;

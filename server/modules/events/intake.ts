@@ -1,3 +1,4 @@
+import { unstorableIn } from '#server/http/storable.ts';
 import { jsonBytes, MAX_EVENT_BYTES, toIssues } from '#shared/contracts/sync.ts';
 import { newEventSchema, type NewEvent, type StoredEvent } from '#shared/schemas/events.ts';
 import type { EventRow, NewEventRow } from './queries.ts';
@@ -11,7 +12,7 @@ export type Checked = { ok: true; event: NewEvent } | { ok: false; id: string | 
 export function checkItem(item: unknown, caseId: string): Checked {
   const id = typeof (item as { id?: unknown })?.id === 'string' ? String((item as { id: string }).id).slice(0, 64) : null;
   const unstorable = unstorableIn(item);
-  if (unstorable) return { ok: false, id, reason: `Invalid event: ${unstorable}` };
+  if (unstorable) return { ok: false, id, reason: `Invalid event: ${unstorable.path}: ${unstorable.message}` };
   const bytes = jsonBytes(item);
   if (bytes > MAX_EVENT_BYTES) return { ok: false, id, reason: `The event is ${bytes} bytes; at most ${MAX_EVENT_BYTES} are accepted` };
   const parsed = newEventSchema.safeParse(item);
@@ -24,31 +25,6 @@ export function checkItem(item: unknown, caseId: string): Checked {
   const event = parsed.data as NewEvent;
   if (event.caseId !== caseId) return { ok: false, id, reason: `The event belongs to case ${event.caseId}, not to the case it was sent to` };
   return { ok: true, event };
-}
-
-/** Deepest nesting of objects and arrays in an event (a real one nests four: the event, its payload, an amendment's fields, a value). */
-export const MAX_EVENT_DEPTH = 12;
-
-const UNSTORABLE_TEXT = /\u0000|\p{Cs}/u;
-
-/**
- * Why a pushed value cannot be stored exactly as sent, or null. PostgreSQL's text and jsonb take no NUL
- * character, and a lone UTF-16 surrogate (half of a pair, not a character) would be stored changed, so
- * a repeat delivery of the event would no longer match it. Nesting is bounded, so that nothing after
- * this check (the size count, the comparison of repeats, jsonb) walks a value deep enough to overflow.
- * Keys are strings too and are checked alike.
- */
-function unstorableIn(value: unknown, path = '', depth = 0): string | null {
-  const at = path || '(root)';
-  if (typeof value === 'string') return UNSTORABLE_TEXT.test(value) ? `${at}: contains a NUL character or a broken character, which cannot be stored` : null;
-  if (!value || typeof value !== 'object') return null;
-  if (depth >= MAX_EVENT_DEPTH) return `${at}: nested more than ${MAX_EVENT_DEPTH} levels deep`;
-  for (const [key, inner] of Object.entries(value)) {
-    if (UNSTORABLE_TEXT.test(key)) return `${at}: a field name contains a NUL character or a broken character, which cannot be stored`;
-    const found = unstorableIn(inner, path ? `${path}.${key}` : key, depth + 1);
-    if (found) return found;
-  }
-  return null;
 }
 
 /** JSON with object keys sorted, so that two equal payloads compare equal whatever their key order. */
