@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import { deviceUsages } from '#server/db/schema/index.ts';
 import { deviceUsageSchema } from '#shared/schemas/device-usages.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
-import { addItem, api, buildWard, caseFor, newId, record, tap, type Ward } from './record-fixtures.ts';
+import { addItem, api, buildWard, caseFor, inventedGtin, newId, record, tap, type Ward } from './record-fixtures.ts';
 
 let t: TestContext;
 let w: Ward;
@@ -103,6 +103,30 @@ describe('recording a scanned device', () => {
     expect(res.body.issues[0]).toEqual({ path: 'itemId', message: `The code names "${scanned.description}"` });
   });
 
+  it('refuses an item chosen by hand whose GTIN the scan contradicts, also when the scanned GTIN is in no catalogue item', async () => {
+    const chosen = await addItem(t, w);
+    const c = await caseFor(t, w);
+    const res = await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { itemId: chosen.id, rawScan: `01${inventedGtin()}10L9` });
+    expect(res.status).toBe(400);
+    expect(res.body.issues[0]).toEqual({ path: 'itemId', message: `The code is not that of "${chosen.description}"` });
+    // The item's own GTIN is taken, matched to it.
+    const own = await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { itemId: chosen.id, rawScan: `01${chosen.gtin}10L9` });
+    expect(own.status).toBe(201);
+    expect(own.body).toMatchObject({ itemId: chosen.id, gtin: chosen.gtin, lot: 'L9' });
+  });
+
+  it('answers a repeat with the stored usage after the sign-out closed the record (a retry after a lost answer)', async () => {
+    const c = await caseFor(t, w);
+    const id = newId();
+    expect((await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { id, rawScan: scan('LATE') })).status).toBe(201);
+    await record(t, w.cookies.nurse, c.id, [tap(c.id, w.members.nurse.id, 'sign_out', 62, { items: [{ key: 'counts', label: 'Device counts reconciled', answer: 'yes' }] })]);
+    const again = await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { id, rawScan: scan('LATE') });
+    expect(again.status).toBe(200);
+    expect(again.body).toMatchObject({ id, lot: 'LATE' });
+    // A new scan is refused now.
+    expect((await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { id: newId(), rawScan: scan('NEW') })).status).toBe(409);
+  });
+
   it('stores a repeat with the same id once (a retry after a lost answer)', async () => {
     const c = await caseFor(t, w);
     const id = newId();
@@ -123,6 +147,13 @@ describe('recording a scanned device', () => {
     expect(late.status).toBe(409);
     expect(late.body.error).toMatch(/closed/);
     expect((await api(t, w.cookies.supervisor).get(`/api/cases/${closed.id}/device-usages`)).status).toBe(200);
+  });
+
+  it('refuses a scan with a NUL character with 400 naming rawScan (a 500 was retried by the tablet for ever)', async () => {
+    const c = await caseFor(t, w);
+    const res = await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { id: newId(), rawScan: `https://id.example.test/01/${GTIN}?linkType=a\u0000` });
+    expect(res.status).toBe(400);
+    expect(res.body.issues).toEqual([{ path: 'rawScan', message: 'contains a NUL character or a broken character, which cannot be stored' }]);
   });
 
   it('needs either a scan or a typed label, naming the field', async () => {

@@ -4,7 +4,7 @@ import { and, eq } from 'drizzle-orm';
 import { auditLog } from '#server/db/schema/index.ts';
 import { specimenListSchema, specimenSchema } from '#shared/schemas/specimens.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
-import { api, binary, buildWard, caseFor, newId, type Ward } from './record-fixtures.ts';
+import { api, binary, buildWard, caseFor, newId, record, tap, type Ward } from './record-fixtures.ts';
 
 let t: TestContext;
 let w: Ward;
@@ -49,6 +49,24 @@ describe('the specimen list', () => {
     const again = await api(t, w.cookies.nurse).post(path(c.id), { id, label: 'C' });
     expect([first.status, again.status]).toEqual([201, 200]);
     expect((await api(t, w.cookies.nurse).get(path(c.id))).body.specimens).toHaveLength(1);
+  });
+
+  it('answers a repeated create with the stored specimen after the sign-out closed the record', async () => {
+    const c = await caseFor(t, w);
+    const id = newId();
+    expect((await api(t, w.cookies.nurse).post(path(c.id), { id, label: 'E' })).status).toBe(201);
+    await record(t, w.cookies.nurse, c.id, [tap(c.id, w.members.nurse.id, 'sign_out', 62, { items: [{ key: 'counts', label: 'Device counts reconciled', answer: 'yes' }] })]);
+    const again = await api(t, w.cookies.nurse).post(path(c.id), { id, label: 'E' });
+    expect(again.status).toBe(200);
+    expect(again.body).toMatchObject({ id, label: 'E' });
+    expect((await api(t, w.cookies.nurse).post(path(c.id), { id: newId(), label: 'F' })).status).toBe(409);
+  });
+
+  it('refuses an axis below 0.1 mm, naming the field (a far smaller one would not fit the column)', async () => {
+    const c = await caseFor(t, w);
+    const res = await api(t, w.cookies.nurse).post(path(c.id), { label: 'G', longMm: 1e-300 });
+    expect(res.status).toBe(400);
+    expect(res.body.issues).toEqual([{ path: 'longMm', message: 'At least 0.1 mm' }]);
   });
 
   it('refuses a short axis longer than the long one, an unknown method and an unknown status, naming each field', async () => {

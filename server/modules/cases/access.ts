@@ -13,9 +13,14 @@ export async function caseOfUnit(db: Tx, actor: Actor, caseId: string) {
   return row;
 }
 
-/** As caseOfUnit, and 409 once the record is closed: late corrections are amendments, never edits. */
+/** 409 once the record is closed: late corrections are amendments, never edits. */
+export function assertOpen(row: { status: string }): void {
+  if (!OPEN_STATUSES.has(row.status)) throw conflict(`The record of this case is ${row.status}; specimens and devices can no longer be changed here`);
+}
+
+/** As caseOfUnit, and 409 once the record is closed. */
 export async function openCaseOfUnit(db: Tx, actor: Actor, caseId: string) {
   const row = await caseOfUnit(db, actor, caseId);
-  if (!OPEN_STATUSES.has(row.status)) throw conflict(`The record of this case is ${row.status}; specimens and devices can no longer be changed here`);
+  assertOpen(row);
   return row;
 }

@@ -7,7 +7,7 @@ import { isExpired, parseIdentifier, type DeviceIdentifier } from '#shared/domai
 import { identifierSchemeSchema, type createDeviceUsageSchema, type DeviceUsage, type UsageWarning } from '#shared/schemas/device-usages.ts';
 import type { z } from 'zod';
 import { findItem, findItemByGtin, findItemByHibcc } from '../catalogue/queries.ts';
-import { caseOfUnit, openCaseOfUnit } from '../cases/access.ts';
+import { assertOpen, caseOfUnit } from '../cases/access.ts';
 import { findCaseEvent, findUsage, insertUsage, listUsages } from './queries.ts';
 
 type CreateInput = z.output<typeof createDeviceUsageSchema>;
@@ -54,7 +54,9 @@ export async function usagesOfCase(db: Db, actor: Actor, caseId: string): Promis
  * it reads, never what a client says it read. A repeat of the same id answers the stored usage.
  */
 export async function recordUsage(db: Db, actor: Actor, caseId: string, input: CreateInput, audit: Auditor): Promise<{ usage: DeviceUsage; created: boolean }> {
-  await openCaseOfUnit(db, actor, caseId);
+  const c = await caseOfUnit(db, actor, caseId);
+  // A repeat is answered before the status is looked at: a tablet whose first answer was lost may send
+  // again after the sign-out closed the record, and must hear that the scan is stored.
   if (input.id) {
     const existing = await findUsage(db, input.id);
     if (existing && existing.caseId !== caseId) throw conflict('This usage id belongs to another case', [{ path: 'id', message: 'Already used' }]);
@@ -63,6 +65,7 @@ export async function recordUsage(db: Db, actor: Actor, caseId: string, input: C
       return { usage: toDeviceUsage(existing, warningsOf(existing, item, actor.timeZone)), created: false };
     }
   }
+  assertOpen(c);
   if (input.eventId) {
     const event = await findCaseEvent(db, caseId, input.eventId);
     // The tap may still be on its way from the tablet's outbox: 409 tells the tablet to try again shortly.
@@ -81,6 +84,13 @@ export async function recordUsage(db: Db, actor: Actor, caseId: string, input: C
     const named = await itemNamedBy(db, actor.unitId, id);
     if (chosen && named && chosen.id !== named.id) {
       throw badRequest(`Invalid request body: itemId: the scanned code names "${named.description}", not "${chosen.description}"`, [{ path: 'itemId', message: `The code names "${named.description}"` }]);
+    }
+    // A code that names no catalogue item may still name another product than the one chosen.
+    const otherProduct = chosen && !named && (
+      (id.gtin && chosen.gtin && id.gtin !== chosen.gtin)
+      || (id.labeler && id.product && chosen.hibccLabeler && (id.labeler !== chosen.hibccLabeler || id.product !== chosen.hibccProduct)));
+    if (otherProduct) {
+      throw badRequest(`Invalid request body: itemId: the scanned code is not that of "${chosen.description}"`, [{ path: 'itemId', message: `The code is not that of "${chosen.description}"` }]);
     }
     row = {
       caseId, eventId: input.eventId ?? null, itemId: (named ?? chosen)?.id ?? null, scheme: id.scheme, gtin: id.gtin,

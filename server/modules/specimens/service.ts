@@ -10,7 +10,7 @@ import {
 } from '#shared/schemas/specimens.ts';
 import type { z } from 'zod';
 import { specimenLabelPdf, barcodePng, type LabelSymbology } from '#server/services/labels.ts';
-import { caseOfUnit, openCaseOfUnit } from '../cases/access.ts';
+import { assertOpen, caseOfUnit, openCaseOfUnit } from '../cases/access.ts';
 import { findSpecimen, insertSpecimen, listSpecimens, retrievedAt, updateSpecimen, type SpecimenValues } from './queries.ts';
 
 type CreateInput = z.output<typeof createSpecimenSchema>;
@@ -44,12 +44,15 @@ export async function specimensOfCase(db: Db, actor: Actor, caseId: string, audi
 
 /** Add a specimen; a repeat of the same id in the same case answers the stored one (`created: false`). */
 export async function addSpecimen(db: Db, actor: Actor, caseId: string, input: CreateInput, audit: Auditor): Promise<{ specimen: Specimen; created: boolean }> {
-  await openCaseOfUnit(db, actor, caseId);
+  const c = await caseOfUnit(db, actor, caseId);
+  // A repeat is answered before the status is looked at: a tablet whose first answer was lost may send
+  // again after the sign-out closed the record, and must hear that the specimen is stored.
   if (input.id) {
     const existing = await findSpecimen(db, input.id);
     if (existing && existing.caseId === caseId) return { specimen: toSpecimen(existing), created: false };
     if (existing) throw conflict('This specimen id belongs to another case', [{ path: 'id', message: 'Already used' }]);
   }
+  assertOpen(c);
   const { id, ...rest } = input;
   return db.transaction(async (tx) => {
     const row = await insertSpecimen(tx, caseId, { ...(id ? { id } : {}), ...valuesOf(rest), label: rest.label });
