@@ -51,6 +51,10 @@ export function unitPlugin(sendInvitationEmail?: OrganizationOptions['sendInvita
     allowUserToCreateOrganization: false,
     creatorRole: 'admin',
     invitationExpiresIn: 7 * 24 * 60 * 60,
+    // The plugin's defaults (100 members, 100 pending invitations) would refuse a large unit's next
+    // member only once the invitation is accepted; Ledgerline sets no cap of its own.
+    membershipLimit: 100_000,
+    invitationLimit: 100_000,
     cancelPendingInvitationsOnReInvite: true,
     sendInvitationEmail,
     schema: {

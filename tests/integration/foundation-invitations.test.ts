@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { and, eq } from 'drizzle-orm';
-import { member } from '#server/db/schema/index.ts';
+import { member, user } from '#server/db/schema/index.ts';
 import { ORIGIN, createTestContext, type TestContext } from './helpers/app.ts';
 import { asBrowser, buildMember, buildUnit, signIn, tag, type TestUnit } from './factories.ts';
 
@@ -57,6 +57,22 @@ describe('inviting a person into the unit', () => {
     const [row] = await t.db.select().from(member).where(and(eq(member.organizationId, unit.id), eq(member.userId, res.body.userId)));
     expect(row?.role).toBe('supervisor');
     expect((await request(t.app).get(`/api/invitations/${id}`)).body.status).toBe('accepted');
+  });
+
+  it('a unit of 100 members takes one more (the auth library\'s default cap refused it only at the acceptance)', async () => {
+    const big = await buildUnit(t);
+    const k = tag();
+    const fillers = await t.db.insert(user)
+      .values(Array.from({ length: 99 }, (_, i) => ({ name: `Filler ${k}-${i}`, email: `filler-${k}-${i}@ledgerline.test` })))
+      .returning({ id: user.id });
+    await t.db.insert(member).values(fillers.map((u) => ({ organizationId: big.id, userId: u.id, role: 'nurse', createdAt: new Date() })));
+    const email = `late-${k}@ledgerline.test`;
+    const sent = await request(t.app).post('/api/invitations').set(asBrowser(await signIn(t, big.admin))).send({ email, role: 'nurse' });
+    expect(sent.status).toBe(201);
+    const id = linkIn(email, `${ORIGIN}/invite/`)!.split('/').pop()!;
+    const res = await request(t.app).post(`/api/invitations/${id}/accept`).set(asBrowser()).send({ name: 'Late Joiner', password: 'a-long-enough-secret' });
+    expect(res.status).toBe(201);
+    expect(await t.db.select().from(member).where(eq(member.organizationId, big.id))).toHaveLength(101);
   });
 
   it('an invitation is accepted once only', async () => {

@@ -34,3 +34,8 @@ export async function userExistsWithEmail(db: Tx, email: string): Promise<boolea
 export async function markEmailVerified(db: Tx, userId: string): Promise<void> {
   await db.update(user).set({ emailVerified: true }).where(eq(user.id, userId));
 }
+
+/** Remove an account (its sessions and sign-in accounts go with it: ON DELETE CASCADE). */
+export async function deleteUser(db: Tx, userId: string): Promise<void> {
+  await db.delete(user).where(eq(user.id, userId));
+}

@@ -8,7 +8,7 @@ import type { AcceptInvitationInput, CreateInvitationInput, Invitation, Invitati
 import { invitationStatuses } from '#shared/schemas/api-invitations.ts';
 import { roleSchema } from '#shared/schemas/common.ts';
 import { insertAudit } from '../audit/queries.ts';
-import { findInvitationWithUnit, listUnitInvitations, markEmailVerified, userExistsWithEmail } from './queries.ts';
+import { deleteUser, findInvitationWithUnit, listUnitInvitations, markEmailVerified, userExistsWithEmail } from './queries.ts';
 
 type Row = { id: string; email: string; role: string | null; status: string; expiresAt: Date };
 
@@ -68,10 +68,15 @@ export async function acceptAsNewUser(auth: Auth, db: Db, id: string, input: Acc
   const signUp = await auth.api.signUpEmail({ body: { email: invitation.email, password: input.password, name: input.name }, returnHeaders: true })
     .catch((e: unknown) => fromAuthError(e, 'password'));
   const setCookies = signUp.headers.getSetCookie();
-  await markEmailVerified(db, signUp.response.user.id);
-  const accepted = await auth.api.acceptInvitation({ body: { invitationId: id }, headers: new Headers({ cookie: cookieHeader(setCookies) }), returnHeaders: true })
-    .catch((e: unknown) => fromAuthError(e));
   const userId = signUp.response.user.id;
+  await markEmailVerified(db, userId);
+  // An account made for this invitation and left without its unit would block the invitee for good
+  // ("an account with this e-mail exists"): if the acceptance fails, the account goes too.
+  const accepted = await auth.api.acceptInvitation({ body: { invitationId: id }, headers: new Headers({ cookie: cookieHeader(setCookies) }), returnHeaders: true })
+    .catch(async (e: unknown) => {
+      await deleteUser(db, userId);
+      return fromAuthError(e);
+    });
   await insertAudit(db, { userId, unitId: invitation.unit.id, action: 'invitation.accept', entityType: 'invitation', entityId: id, detail: { role: invitation.role }, ip });
   return {
     setCookies: [...setCookies, ...accepted.headers.getSetCookie()],
