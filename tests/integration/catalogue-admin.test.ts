@@ -75,6 +75,26 @@ describe('the device catalogue', () => {
     expect(badType.body.issues[0].path).toBe('type');
   });
 
+  it('refuses a second item with an HIBCC code the unit already has, in a new item and in an edited one', async () => {
+    const product = `SN${Math.floor(Math.random() * 1e6)}`;
+    const body = { description: 'Snare, 20 mm', type: 'snare', hibccLabeler: 'H777', hibccProduct: product };
+    expect((await api(t, w.cookies.admin).post('/api/catalogue', body)).status).toBe(201);
+    const again = await api(t, w.cookies.admin).post('/api/catalogue', { ...body, description: 'Snare copy' });
+    expect(again.status).toBe(409);
+    expect(again.body.issues).toEqual([{ path: 'hibccProduct', message: 'Already in the catalogue' }]);
+    const other = await addItem(t, w);
+    const edit = await api(t, w.cookies.admin).put(`/api/catalogue/${(other as { id: string }).id}`, { ...body, description: 'Edited into a copy' });
+    expect(edit.status).toBe(409);
+    expect(edit.body.issues).toEqual([{ path: 'hibccProduct', message: 'Already in the catalogue' }]);
+  });
+
+  it('answers items added at the same moment with one code with one 201 and 409s, never a 500 (a double submit)', async () => {
+    const body = { description: 'Clip, double submit', type: 'clip', gtin: inventedGtin() };
+    const answers = await Promise.all(Array.from({ length: 6 }, () => api(t, w.cookies.admin).post('/api/catalogue', body)));
+    const statuses = answers.map((r) => r.status).sort();
+    expect(statuses).toEqual([201, 409, 409, 409, 409, 409]);
+  });
+
   it('an admin edits an item and takes it out of use; it leaves the list but stays readable on request', async () => {
     const item = await addItem(t, w);
     const edited = await api(t, w.cookies.admin).put(`/api/catalogue/${item.id}`, { description: 'Clip, 16 mm opening', type: 'clip', sizeLabel: '16 mm', gtin: item.gtin });

@@ -127,6 +127,15 @@ describe('recording a scanned device', () => {
     expect((await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { id: newId(), rawScan: scan('NEW') })).status).toBe(409);
   });
 
+  it('answers the same usage sent several times at once with 201 once and the stored usage after, never a 500', async () => {
+    const c = await caseFor(t, w);
+    const id = newId();
+    const answers = await Promise.all(Array.from({ length: 4 }, () => api(t, w.cookies.nurse).post(`/api/cases/${c.id}/device-usages`, { id, rawScan: scan('RACE') })));
+    expect(answers.map((r) => r.status).sort()).toEqual([200, 200, 200, 201]);
+    expect(answers.every((r) => r.body.id === id)).toBe(true);
+    expect(await t.db.select().from(deviceUsages).where(eq(deviceUsages.caseId, c.id))).toHaveLength(1);
+  });
+
   it('stores a repeat with the same id once (a retry after a lost answer)', async () => {
     const c = await caseFor(t, w);
     const id = newId();

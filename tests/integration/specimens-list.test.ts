@@ -51,6 +51,14 @@ describe('the specimen list', () => {
     expect((await api(t, w.cookies.nurse).get(path(c.id))).body.specimens).toHaveLength(1);
   });
 
+  it('answers the same specimen sent several times at once with 201 once and the stored one after, never a 500', async () => {
+    const c = await caseFor(t, w);
+    const id = newId();
+    const answers = await Promise.all(Array.from({ length: 4 }, () => api(t, w.cookies.nurse).post(path(c.id), { id, label: 'R' })));
+    expect(answers.map((r) => r.status).sort()).toEqual([200, 200, 200, 201]);
+    expect((await api(t, w.cookies.nurse).get(path(c.id))).body.specimens).toHaveLength(1);
+  });
+
   it('answers a repeated create with the stored specimen after the sign-out closed the record', async () => {
     const c = await caseFor(t, w);
     const id = newId();

@@ -22,6 +22,8 @@ export const catalogueItems = pgTable('catalogue_items', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, (t) => [
   uniqueIndex('catalogue_items_unit_gtin_key').on(t.unitId, t.gtin),
+  // One item per HIBCC labeler and product code, as per GTIN (rows without a code repeat freely: NULLs are distinct).
+  uniqueIndex('catalogue_items_unit_hibcc_key').on(t.unitId, t.hibccLabeler, t.hibccProduct),
   check('catalogue_items_type_check', oneOf(t.type, catalogueItemTypes)),
 ]);
 

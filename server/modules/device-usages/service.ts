@@ -7,6 +7,7 @@ import { isExpired, parseIdentifier, type DeviceIdentifier } from '#shared/domai
 import { identifierSchemeSchema, type createDeviceUsageSchema, type DeviceUsage, type UsageWarning } from '#shared/schemas/device-usages.ts';
 import type { z } from 'zod';
 import { findItem, findItemByGtin, findItemByHibcc } from '../catalogue/queries.ts';
+import { isUniqueViolation } from '#server/db/errors.ts';
 import { assertOpen, caseOfUnit } from '../cases/access.ts';
 import { findCaseEvent, findUsage, insertUsage, listUsages } from './queries.ts';
 
@@ -57,14 +58,15 @@ export async function recordUsage(db: Db, actor: Actor, caseId: string, input: C
   const c = await caseOfUnit(db, actor, caseId);
   // A repeat is answered before the status is looked at: a tablet whose first answer was lost may send
   // again after the sign-out closed the record, and must hear that the scan is stored.
-  if (input.id) {
-    const existing = await findUsage(db, input.id);
+  const repeat = async (id: string) => {
+    const existing = await findUsage(db, id);
     if (existing && existing.caseId !== caseId) throw conflict('This usage id belongs to another case', [{ path: 'id', message: 'Already used' }]);
-    if (existing) {
-      const item = existing.itemId ? await findItem(db, actor.unitId, existing.itemId) : null;
-      return { usage: toDeviceUsage(existing, warningsOf(existing, item, actor.timeZone)), created: false };
-    }
-  }
+    if (!existing) return null;
+    const item = existing.itemId ? await findItem(db, actor.unitId, existing.itemId) : null;
+    return { usage: toDeviceUsage(existing, warningsOf(existing, item, actor.timeZone)), created: false };
+  };
+  const earlier = input.id ? await repeat(input.id) : null;
+  if (earlier) return earlier;
   assertOpen(c);
   if (input.eventId) {
     const event = await findCaseEvent(db, caseId, input.eventId);
@@ -109,5 +111,10 @@ export async function recordUsage(db: Db, actor: Actor, caseId: string, input: C
     const warnings = warningsOf(stored, item, actor.timeZone);
     await audit(tx, { action: 'device_usage.create', entityType: 'device_usage', entityId: stored.id, detail: { caseId, eventId: stored.eventId, itemId: stored.itemId, lot: stored.lot, warnings } });
     return { usage: toDeviceUsage(stored, warnings), created: true };
+  }).catch(async (err: unknown) => {
+    // The same id sent twice at once (two tabs flushing one outbox): the one stored answers both.
+    const raced = input.id && isUniqueViolation(err, 'device_usages_pkey') ? await repeat(input.id) : null;
+    if (raced) return raced;
+    throw err;
   });
 }

@@ -10,6 +10,7 @@ import {
 } from '#shared/schemas/specimens.ts';
 import type { z } from 'zod';
 import { specimenLabelPdf, barcodePng, type LabelSymbology } from '#server/services/labels.ts';
+import { isUniqueViolation } from '#server/db/errors.ts';
 import { assertOpen, caseOfUnit, openCaseOfUnit } from '../cases/access.ts';
 import { findSpecimen, insertSpecimen, listSpecimens, retrievedAt, updateSpecimen, type SpecimenValues } from './queries.ts';
 
@@ -47,17 +48,24 @@ export async function addSpecimen(db: Db, actor: Actor, caseId: string, input: C
   const c = await caseOfUnit(db, actor, caseId);
   // A repeat is answered before the status is looked at: a tablet whose first answer was lost may send
   // again after the sign-out closed the record, and must hear that the specimen is stored.
-  if (input.id) {
-    const existing = await findSpecimen(db, input.id);
-    if (existing && existing.caseId === caseId) return { specimen: toSpecimen(existing), created: false };
-    if (existing) throw conflict('This specimen id belongs to another case', [{ path: 'id', message: 'Already used' }]);
-  }
+  const repeat = async (id: string) => {
+    const existing = await findSpecimen(db, id);
+    if (existing && existing.caseId !== caseId) throw conflict('This specimen id belongs to another case', [{ path: 'id', message: 'Already used' }]);
+    return existing ? { specimen: toSpecimen(existing), created: false } : null;
+  };
+  const earlier = input.id ? await repeat(input.id) : null;
+  if (earlier) return earlier;
   assertOpen(c);
   const { id, ...rest } = input;
   return db.transaction(async (tx) => {
     const row = await insertSpecimen(tx, caseId, { ...(id ? { id } : {}), ...valuesOf(rest), label: rest.label });
     await audit(tx, { action: 'specimen.create', entityType: 'specimen', entityId: row.id, detail: { caseId, label: row.label } });
     return { specimen: toSpecimen(row), created: true };
+  }).catch(async (err: unknown) => {
+    // The same id sent twice at once: the one stored answers both.
+    const raced = id && isUniqueViolation(err, 'specimens_pkey') ? await repeat(id) : null;
+    if (raced) return raced;
+    throw err;
   });
 }
 

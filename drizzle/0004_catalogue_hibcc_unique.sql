@@ -1,0 +1,1 @@
+CREATE UNIQUE INDEX "catalogue_items_unit_hibcc_key" ON "catalogue_items" USING btree ("unit_id","hibcc_labeler","hibcc_product");
