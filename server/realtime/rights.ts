@@ -3,12 +3,12 @@ import type { Logger } from 'pino';
 import type { Socket } from 'socket.io';
 import type { Db } from '../db/client.ts';
 import { cases, member, session } from '../db/schema/index.ts';
-import { caseRoom } from '#shared/contracts/sync.ts';
+import { caseOfRoom, caseRoom } from '#shared/contracts/sync.ts';
 import { roles } from '#shared/schemas/common.ts';
 import type { SocketData } from './session.ts';
 
 /** The case ids of the rooms a socket is in. */
-const casesOf = (socket: Socket) => [...socket.rooms].flatMap((r) => (r.startsWith('case:') ? [r.slice('case:'.length)] : []));
+const casesOf = (socket: Socket) => [...socket.rooms].flatMap((r) => caseOfRoom(r) ?? []);
 
 /**
  * What a socket hears without asking, checked again for every socket of this node. A push or a join

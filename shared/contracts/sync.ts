@@ -29,8 +29,11 @@ export const MAX_BATCH_EVENTS = 500;
 export const MAX_PUSH_BYTES = 1024 * 1024;
 /** Most events in one page of a join answer or a REST read. */
 export const EVENTS_PAGE_SIZE = 500;
+const CASE_ROOM = 'case:';
 /** Room of one case: every socket that joined it receives its `events.recorded`. */
-export const caseRoom = (caseId: string) => `case:${caseId.toLowerCase()}`;
+export const caseRoom = (caseId: string) => `${CASE_ROOM}${caseId.toLowerCase()}`;
+/** The case whose room this is, or null for any other room (a socket's own). */
+export const caseOfRoom = (room: string) => (room.startsWith(CASE_ROOM) ? room.slice(CASE_ROOM.length) : null);
 /** The highest sequence a case can reach (the column is a PostgreSQL integer); a read after it is refused. */
 export const MAX_SEQ = 2_147_483_647;
 

@@ -70,8 +70,7 @@ export class SyncEngine {
     const ackTimeoutMs = opts.ackTimeoutMs ?? 10_000;
     const onError = (message: string, code?: SyncError['code']) => {
       this.lastError = message;
-      // The socket holds the ended session: the next sign-in, even of the same user, connects again.
-      if (code === 'unauthorized') { this.sessionEnded = true; this.signedOutSocket = true; }
+      if (code === 'unauthorized') this.sessionHasEnded();
       this.changed();
     };
     this.cases = new CaseRegistry({ socket: this.socket, storage: this.storage, ackTimeoutMs, entries: this.entries, changed: (id) => this.changed(id), onError });
@@ -122,8 +121,7 @@ export class SyncEngine {
       // The server closes a socket whose session ended (server/realtime/rights.ts); Socket.IO does not
       // reconnect after that, and the next sign-in, even of the same user, must.
       if (reason === 'io server disconnect' && !this.stopped) {
-        this.signedOutSocket = true;
-        this.sessionEnded = true;
+        this.sessionHasEnded();
         this.lastError = 'The server ended this connection: your session has ended; sign in again';
       }
       this.changed();
@@ -131,13 +129,22 @@ export class SyncEngine {
     s.on('connect_error', (err) => {
       this.lastError = err.message;
       // The handshake was refused for want of a session (server/realtime/session.ts), not for the network.
-      // Socket.IO does not retry a refusal: the next sign-in, even of the same user, connects again.
-      if ((err as { data?: { code?: unknown } }).data?.code === 'unauthorized') { this.sessionEnded = true; this.signedOutSocket = true; }
+      if ((err as { data?: { code?: unknown } }).data?.code === 'unauthorized') this.sessionHasEnded();
       this.changed();
     });
     s.on(SyncMessages.eventsRecorded, (msg) => this.cases.onRecorded(msg));
     this.changed();
     if (!this.stopped) s.connect();
+  }
+
+  /**
+   * The server said this tablet's session has ended: the screen says so, and since the socket holds
+   * that session (and Socket.IO retries neither a refusal nor a server's disconnect), the next sign-in,
+   * even of the same user, makes a new handshake.
+   */
+  private sessionHasEnded(): void {
+    this.sessionEnded = true;
+    this.signedOutSocket = true;
   }
 
   get deviceId(): string { return this.device; }

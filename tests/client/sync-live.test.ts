@@ -24,6 +24,18 @@ function endingSessions(server: TestSyncServer): () => void {
   return () => { for (const s of server.io.sockets.sockets.values()) ended.add(s.id); };
 }
 
+/** A new case and a tablet connected to `server`, recording as `author`. */
+async function connectedTablet(server: TestSyncServer, author?: string) {
+  const caseId = newCaseId();
+  const tablet = startTablet(server.url, { dbName: newDbName(), ...(author ? { author } : {}) });
+  await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+  return { caseId, tablet };
+}
+
+/** Until the tap is accepted on the tablet (and the server holds it). */
+const acceptedOn = (tablet: ReturnType<typeof startTablet>, caseId: string, tapId: string) =>
+  eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tapId, 'accepted']]));
+
 describe('live sync between tablets', () => {
   it('shows a tap from another tablet in the same case as it is stored', async () => {
     server = await startTestSyncServer();
@@ -105,24 +117,20 @@ describe('live sync between tablets', () => {
   it('sends the taps of a user who signs in after another signed out on the same page', async () => {
     server = await startTestSyncServer();
     const endSessions = endingSessions(server);
-    const caseId = newCaseId();
-    const tablet = startTablet(server.url, { dbName: newDbName() });
-    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+    const { caseId, tablet } = await connectedTablet(server);
 
     endSessions(); // the first nurse signed out
     tablet.setAuthor('user-test-nurse-two'); // the second signed in
     const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
-    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    await acceptedOn(tablet, caseId, tap.id);
     expect(tap.author).toBe('user-test-nurse-two');
   });
 
   it('closes its socket at a sign-out and sends what was tapped meanwhile once the same user signs in again', async () => {
     server = await startTestSyncServer();
     const endSessions = endingSessions(server);
-    const caseId = newCaseId();
     const author = 'user-test-nurse-one';
-    const tablet = startTablet(server.url, { dbName: newDbName(), author });
-    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+    const { caseId, tablet } = await connectedTablet(server, author);
 
     endSessions();
     tablet.signedOut();
@@ -132,15 +140,13 @@ describe('live sync between tablets', () => {
     expect(tablet.status.getSnapshot().waiting).toBe(1);
 
     tablet.setAuthor(author); // the same nurse signs in again: a new handshake, with the new session
-    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    await acceptedOn(tablet, caseId, tap.id);
   });
 
   it('says so when the server closes its socket for an ended session, and connects again at the next sign-in of the same user', async () => {
     server = await startTestSyncServer();
-    const caseId = newCaseId();
     const author = 'user-test-nurse-one';
-    const tablet = startTablet(server.url, { dbName: newDbName(), author });
-    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+    const { caseId, tablet } = await connectedTablet(server, author);
 
     // The session was ended on another page; the server's rights check closes the socket.
     server.io.disconnectSockets(true);
@@ -149,23 +155,21 @@ describe('live sync between tablets', () => {
     expect(tablet.status.getSnapshot().waiting).toBe(1);
 
     tablet.setAuthor(author); // the same nurse signs in again
-    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    await acceptedOn(tablet, caseId, tap.id);
     expect(tablet.status.getSnapshot()).toMatchObject({ lastError: null, sessionEnded: false });
   });
 
   it('takes a push answered "unauthorized" as an ended session, and connects again at the next sign-in of the same user', async () => {
     server = await startTestSyncServer();
     const endSessions = endingSessions(server);
-    const caseId = newCaseId();
     const author = 'user-test-nurse-one';
-    const tablet = startTablet(server.url, { dbName: newDbName(), author });
-    await eventually(() => expect(tablet.status.getSnapshot().connected).toBe(true));
+    const { caseId, tablet } = await connectedTablet(server, author);
 
     endSessions(); // expired, say, with the socket still open
     const tap = await tablet.recordTap({ caseId, kind: 'scope_in', payload: {} });
     await eventually(() => expect(tablet.status.getSnapshot()).toMatchObject({ sessionEnded: true, waiting: 1 }));
     tablet.setAuthor(author); // the same nurse signs in again: a new handshake, with the new session
-    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    await acceptedOn(tablet, caseId, tap.id);
     expect(tablet.status.getSnapshot().sessionEnded).toBe(false);
   });
 
@@ -182,7 +186,7 @@ describe('live sync between tablets', () => {
 
     refusing = false;
     tablet.setAuthor(author); // signed in again
-    await eventually(() => expect(tablet.caseView(caseId).getSnapshot().items.map((i) => [i.id, i.state])).toEqual([[tap.id, 'accepted']]));
+    await acceptedOn(tablet, caseId, tap.id);
     expect(tablet.status.getSnapshot().sessionEnded).toBe(false);
   });
 });

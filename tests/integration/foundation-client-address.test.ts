@@ -12,6 +12,16 @@ import { join, newCase, signedInTeam, startNode, stopAll, tablet } from './sync-
 // each proxy appends the address it received the request from, so the client is the rightmost address not
 // added by a believed proxy. The values here are documentation addresses (RFC 5737).
 
+/** A sign-in through the app, with these headers besides the browser's. */
+const signInWith = (t: TestContext, headers: Record<string, string>, user: Pick<TestMember, 'email' | 'password'>) =>
+  request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), ...headers }).send({ email: user.email, password: user.password });
+
+/** The address better-auth wrote on the user's newest session. */
+async function newestSessionAddress(t: TestContext, userId: string): Promise<string | null> {
+  const [row] = await t.db.select({ ip: session.ipAddress }).from(session).where(eq(session.userId, userId)).orderBy(desc(session.createdAt)).limit(1);
+  return row?.ip ?? null;
+}
+
 describe('without TRUST_PROXY', () => {
   let t: TestContext;
   let nurse: TestMember;
@@ -23,16 +33,12 @@ describe('without TRUST_PROXY', () => {
 
   it('records a new session with the connection\'s address, not the first address a client wrote', async () => {
     const other = await buildMember(t, await buildUnit(t), 'nurse');
-    const res = await request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': '192.0.2.77', [CLIENT_ADDRESS_HEADER]: '192.0.2.78' })
-      .send({ email: other.email, password: other.password });
-    expect(res.status).toBe(200);
-    const [row] = await t.db.select({ ip: session.ipAddress }).from(session).where(eq(session.userId, other.id)).orderBy(desc(session.createdAt)).limit(1);
-    expect(row!.ip).toMatch(/127\.0\.0\.1$/);
+    expect((await signInWith(t, { 'x-forwarded-for': '192.0.2.77', [CLIENT_ADDRESS_HEADER]: '192.0.2.78' }, other)).status).toBe(200);
+    expect(await newestSessionAddress(t, other.id)).toMatch(/127\.0\.0\.1$/);
   });
 
   it('counts failed sign-ins by the connection\'s address, whatever X-Forwarded-For a client claims', async () => {
-    const attempt = (claimed: string) => request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': claimed })
-      .send({ email: nurse.email, password: 'wrong-password-123' });
+    const attempt = (claimed: string) => signInWith(t, { 'x-forwarded-for': claimed }, { email: nurse.email, password: 'wrong-password-123' });
     expect((await attempt('192.0.2.1')).status).toBe(401);
     expect((await attempt('192.0.2.2')).status).toBe(401);
     expect((await attempt('192.0.2.3')).status).toBe(429);
@@ -54,16 +60,12 @@ describe('with TRUST_PROXY naming the proxy', () => {
 
   it('records a new session with the client\'s address behind the proxy', async () => {
     const other = await buildMember(t, await buildUnit(t), 'nurse');
-    const res = await request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': '198.51.100.1, 203.0.113.20' })
-      .send({ email: other.email, password: other.password });
-    expect(res.status).toBe(200);
-    const [row] = await t.db.select({ ip: session.ipAddress }).from(session).where(eq(session.userId, other.id)).orderBy(desc(session.createdAt)).limit(1);
-    expect(row!.ip).toBe('203.0.113.20');
+    expect((await signInWith(t, { 'x-forwarded-for': '198.51.100.1, 203.0.113.20' }, other)).status).toBe(200);
+    expect(await newestSessionAddress(t, other.id)).toBe('203.0.113.20');
   });
 
   it('counts failed sign-ins per client behind the proxy: one nurse\'s mistakes do not lock out the others', async () => {
-    const attempt = (client: string) => request(t.app).post('/api/auth/sign-in/email').set({ ...asBrowser(), 'x-forwarded-for': client })
-      .send({ email: nurse.email, password: 'wrong-password-123' });
+    const attempt = (client: string) => signInWith(t, { 'x-forwarded-for': client }, { email: nurse.email, password: 'wrong-password-123' });
     expect((await attempt('192.0.2.10')).status).toBe(401);
     expect((await attempt('192.0.2.10')).status).toBe(401);
     expect((await attempt('192.0.2.10')).status).toBe(429);
