@@ -66,6 +66,11 @@ export type LesionInput = z.infer<typeof lesionInputSchema>;
 
 /** POST /api/cases — schedule a case. Used by the form, the route and the tests. */
 export const scheduleCaseSchema = z.object({
+  /**
+   * The case's id, made by the tablet once per form: a repeat of the request (its answer lost, the
+   * button pressed again) answers the case it made instead of scheduling a second one.
+   */
+  id: uuidSchema.optional(),
   patient: patientInputSchema,
   procedureType: procedureTypeSchema,
   indication: z.string().trim().min(1, 'Indication is required').max(500),

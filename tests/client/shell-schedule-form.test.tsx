@@ -126,6 +126,24 @@ describe('the schedule form', () => {
     });
   });
 
+  it('sends one case id for the life of the form, so a retry after a lost answer makes no second case', async () => {
+    const user = renderForm();
+    await fillValid(user);
+    net.on('POST', '/api/cases', () => Promise.reject(new TypeError('Failed to fetch')));
+    await user.click(screen.getByRole('button', { name: /schedule the case/i }));
+    expect(await screen.findByText('The case was not scheduled')).toBeInTheDocument();
+
+    const created = buildCase();
+    net.on('POST', '/api/cases', () => json(200, created));
+    net.routes.shift();
+    await user.click(screen.getByRole('button', { name: /schedule the case/i }));
+    expect(await screen.findByText(`Case page ${created.id}`)).toBeInTheDocument();
+    expect(net.sent).toHaveLength(2);
+    const [first, second] = net.sent.map((r) => (r.body as { id?: string }).id);
+    expect(first).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
+    expect(second).toBe(first);
+  });
+
   it('puts the field issues of a refused request on the same fields', async () => {
     const user = renderForm();
     await fillValid(user);

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import { v7 as uuidv7 } from 'uuid';
 import { and, eq } from 'drizzle-orm';
 import { auditLog, patients } from '#server/db/schema/index.ts';
 import { caseDetailSchema } from '#shared/schemas/api-cases.ts';
@@ -77,6 +78,44 @@ describe('scheduling a case', () => {
     expect(again.body.patient.id).toBe(first.body.patient.id);
     const rows = await t.db.select().from(patients).where(and(eq(patients.unitId, unit.id), eq(patients.hospitalNumber, input.patient.hospitalNumber)));
     expect(rows).toHaveLength(1);
+  });
+
+  it('a repeat of one request (its answer lost, or sent twice at once) makes one case and answers it', async () => {
+    const id = uuidv7();
+    const input = { ...scheduleInput(unit, team, { scheduledAt: '2031-06-02T08:00:00.000Z' }), id };
+    const first = await post('/api/cases', input);
+    expect(first.status).toBe(201);
+    expect(first.body.id).toBe(id);
+    const again = await post('/api/cases', input);
+    expect(again.status).toBe(200);
+    expect(again.body).toEqual(first.body);
+    // Both at once: one insert wins, the other is answered with its case.
+    const racedId = uuidv7();
+    const raced = { ...scheduleInput(unit, team, { scheduledAt: '2031-06-02T09:00:00.000Z' }), id: racedId };
+    const both = await Promise.all([post('/api/cases', raced), post('/api/cases', raced)]);
+    expect(both.map((r) => r.status).sort()).toEqual([200, 201]);
+    expect(both[0]!.body).toEqual(both[1]!.body);
+    const day = await get('/api/cases?date=2031-06-02');
+    expect(day.body.map((c: { id: string }) => c.id).sort()).toEqual([id, racedId].sort());
+    const audited = await t.db.select().from(auditLog).where(and(eq(auditLog.action, 'case.schedule'), eq(auditLog.entityId, id)));
+    expect(audited).toHaveLength(1);
+  });
+
+  it('refuses a case id used before for other details, or by another user, or in another unit', async () => {
+    const id = uuidv7();
+    const input = { ...scheduleInput(unit, team), id };
+    expect((await post('/api/cases', input)).status).toBe(201);
+    const edited = await post('/api/cases', { ...input, lesion: { ...input.lesion, sizeMm: 31 } });
+    expect(edited.status).toBe(409);
+    expect(edited.body.error).toMatch(/already scheduled .* other details/i);
+    expect(edited.body.issues).toEqual([{ path: 'lesion.sizeMm', message: expect.stringMatching(/^Differs/) }]);
+    const byOther = await post('/api/cases', input, await signIn(t, team.endoscopist));
+    expect(byOther.status).toBe(409);
+    const other = await buildTeam(t);
+    const elsewhere = await post('/api/cases', { ...scheduleInput(other.unit, other.members), id }, await signIn(t, other.members.nurse));
+    expect(elsewhere.status).toBe(409);
+    expect(JSON.stringify(elsewhere.body)).not.toContain(input.patient.hospitalNumber);
+    expect((await get(`/api/cases/${id}`)).body.lesion.sizeMm).toBe(30);
   });
 
   it('refuses a hospital number whose date of birth and name disagree with the file, naming each field', async () => {

@@ -13,7 +13,7 @@ const caseColumns = {
   scheduledAt: cases.scheduledAt, indication: cases.indication, lesionSite: cases.lesionSite,
   lesionSizeMm: cases.lesionSizeMm, lesionParis: cases.lesionParis, sedation: cases.sedation,
   createdAt: cases.createdAt, closedAt: cases.closedAt, cancelledAt: cases.cancelledAt,
-  cancelReason: cases.cancelReason, lastSeq: cases.lastSeq,
+  cancelReason: cases.cancelReason, lastSeq: cases.lastSeq, createdBy: cases.createdBy,
   roomId: rooms.id, roomName: rooms.name, roomUnitId: rooms.unitId,
   patientId: patients.id, hospitalNumber: patients.hospitalNumber, familyName: patients.familyName,
   givenName: patients.givenName, birthDate: patients.birthDate, sex: patients.sex,

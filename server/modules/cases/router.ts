@@ -16,8 +16,8 @@ export function casesRouter(ctx: ApiContext): Router {
     res.json(await listCases(db, actorOf(req), parseQuery(listCasesQuerySchema, req)));
   });
   router.post('/cases', authenticate, permit('case.schedule'), async (req, res) => {
-    const input = parseBody(scheduleCaseSchema, req);
-    res.status(201).json(await scheduleCase(db, actorOf(req), input, auditorFor(req)));
+    const { summary, created } = await scheduleCase(db, actorOf(req), parseBody(scheduleCaseSchema, req), auditorFor(req));
+    res.status(created ? 201 : 200).json(summary);
   });
   router.get('/cases/:id', authenticate, permit('case.view'), async (req, res) => {
     const { id } = parseParams(caseIdParamsSchema, req);

@@ -1,4 +1,5 @@
 import type { Db } from '#server/db/client.ts';
+import { isUniqueViolation } from '#server/db/errors.ts';
 import type { Auditor } from '#server/http/audit.ts';
 import { badRequest, conflict, type Issue } from '#server/http/errors.ts';
 import type { Actor } from '#server/http/session.ts';
@@ -10,7 +11,7 @@ import { reuseOrCreatePatient } from '../patients/service.ts';
 import { findRoom } from '../rooms/queries.ts';
 import { toDetail, toSummary } from './mapping.ts';
 import { caseOfUnit } from './access.ts';
-import { cancelScheduledCase, findCaseRecord, insertCase, listCaseRecords } from './queries.ts';
+import { cancelScheduledCase, findCaseRecord, insertCase, listCaseRecords, type CaseRecord } from './queries.ts';
 
 export async function listCases(db: Db, actor: Actor, q: { date?: string; roomId?: string; status?: CaseStatus }): Promise<CaseSummary[]> {
   const rows = await listCaseRecords(db, actor.unitId, { ...q, timeZone: actor.timeZone });
@@ -27,24 +28,74 @@ async function checkTeamAndRoom(db: Db, unitId: string, input: ScheduleCaseInput
   return issues;
 }
 
-/** Schedule a case: the patient is reused by hospital number within the unit, or made. */
-export async function scheduleCase(db: Db, actor: Actor, input: ScheduleCaseInput, audit: Auditor): Promise<CaseSummary> {
+/**
+ * What a repeat of a schedule request must match in the case it made: the same author, and every field
+ * as stored. A difference is named field by field (a form edited after its answer was lost).
+ */
+function repeatIssues(row: CaseRecord, actor: Actor, input: ScheduleCaseInput): Issue[] {
+  if (row.createdBy !== actor.userId) return [{ path: 'id', message: 'Already used for another case' }];
+  const stored: Record<string, unknown> = {
+    'patient.hospitalNumber': row.hospitalNumber, procedureType: row.procedureType, indication: row.indication,
+    'lesion.site': row.lesionSite, 'lesion.sizeMm': row.lesionSizeMm, 'lesion.paris': row.lesionParis,
+    roomId: row.roomId, scheduledAt: row.scheduledAt.getTime(), sedation: row.sedation,
+    endoscopistId: row.endoscopistId, nurseId: row.nurseId,
+  };
+  const sent: Record<string, unknown> = {
+    'patient.hospitalNumber': input.patient.hospitalNumber, procedureType: input.procedureType, indication: input.indication,
+    'lesion.site': input.lesion.site, 'lesion.sizeMm': input.lesion.sizeMm, 'lesion.paris': input.lesion.paris,
+    roomId: input.roomId, scheduledAt: Date.parse(input.scheduledAt), sedation: input.sedation,
+    endoscopistId: input.endoscopistId, nurseId: input.nurseId,
+  };
+  return Object.keys(stored).filter((k) => stored[k] !== sent[k]).map((path) => ({ path, message: 'Differs from the case this form already scheduled' }));
+}
+
+/**
+ * The case an earlier request with this id made, or null when there is none. A case of another unit
+ * with the id is answered as taken, and shows nothing of that case.
+ */
+async function earlierSchedule(db: Db, actor: Actor, input: ScheduleCaseInput & { id: string }): Promise<CaseSummary | null> {
+  const row = await findCaseRecord(db, actor.unitId, input.id);
+  if (!row) return null;
+  const issues = repeatIssues(row, actor, input);
+  if (issues.length) throw conflict('A case was already scheduled with this id and other details; open it from the day list', issues);
+  return toSummary(row);
+}
+
+/**
+ * Schedule a case: the patient is reused by hospital number within the unit, or made. With an `id`, a
+ * repeat of the request answers the case it made (`created: false`), also when both arrive at once.
+ */
+export async function scheduleCase(db: Db, actor: Actor, input: ScheduleCaseInput, audit: Auditor): Promise<{ summary: CaseSummary; created: boolean }> {
+  const requestId = input.id;
+  const repeat = requestId ? () => earlierSchedule(db, actor, { ...input, id: requestId }) : async () => null;
+  const earlier = await repeat();
+  if (earlier) return { summary: earlier, created: false };
   const issues = await checkTeamAndRoom(db, actor.unitId, input);
   if (issues.length) throw badRequest(`Cannot schedule: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`, issues);
-  const id = await db.transaction(async (tx) => {
-    const patient = await reuseOrCreatePatient(tx, actor.unitId, input.patient);
-    const caseId = await insertCase(tx, {
-      unitId: actor.unitId, patientId: patient.id, roomId: input.roomId, procedureType: input.procedureType,
-      indication: input.indication, lesionSite: input.lesion.site, lesionSizeMm: input.lesion.sizeMm,
-      lesionParis: input.lesion.paris, sedation: input.sedation, endoscopistId: input.endoscopistId,
-      nurseId: input.nurseId, scheduledAt: new Date(input.scheduledAt), createdBy: actor.userId,
+  let id: string;
+  try {
+    id = await db.transaction(async (tx) => {
+      const patient = await reuseOrCreatePatient(tx, actor.unitId, input.patient);
+      const caseId = await insertCase(tx, {
+        ...(requestId ? { id: requestId } : {}),
+        unitId: actor.unitId, patientId: patient.id, roomId: input.roomId, procedureType: input.procedureType,
+        indication: input.indication, lesionSite: input.lesion.site, lesionSizeMm: input.lesion.sizeMm,
+        lesionParis: input.lesion.paris, sedation: input.sedation, endoscopistId: input.endoscopistId,
+        nurseId: input.nurseId, scheduledAt: new Date(input.scheduledAt), createdBy: actor.userId,
+      });
+      await audit(tx, { action: 'case.schedule', entityType: 'case', entityId: caseId, detail: { patientId: patient.id } });
+      return caseId;
     });
-    await audit(tx, { action: 'case.schedule', entityType: 'case', entityId: caseId, detail: { patientId: patient.id } });
-    return caseId;
-  });
+  } catch (err) {
+    if (!requestId || !isUniqueViolation(err, 'cases_pkey')) throw err;
+    // The same request twice at once: the one stored answers both. Else the id is another unit's.
+    const raced = await repeat();
+    if (raced) return { summary: raced, created: false };
+    throw conflict('This case id is taken; schedule the case again from a new form', [{ path: 'id', message: 'Already used' }]);
+  }
   const row = await findCaseRecord(db, actor.unitId, id);
   if (!row) throw new Error(`case ${id} vanished after insert`);
-  return toSummary(row);
+  return { summary: toSummary(row), created: true };
 }
 
 /**

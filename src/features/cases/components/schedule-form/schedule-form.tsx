@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router';
+import { v7 as uuidv7 } from 'uuid';
 import type { CaseSummary, Member, Room, ScheduleCaseInput } from '#shared/schemas/cases.ts';
 import { Banner } from '@/components/ui/banner.tsx';
 import { Button } from '@/components/ui/button.tsx';
@@ -29,6 +30,9 @@ export function ScheduleForm({ defaults, rooms, endoscopists, nurses, onSchedule
   const navigate = useNavigate();
   const schedule = useScheduleCase();
   const [leftover, setLeftover] = useState<string[]>([]);
+  // The case's id, made once per form: sending again after an answer was lost (a network drop, a second
+  // press) is answered with the case the first send made, never a second case (scheduleCaseSchema.id).
+  const [caseId] = useState(() => uuidv7());
   const form = useForm<ScheduleFormValues, unknown, ScheduleCaseInput>({
     resolver: scheduleResolver,
     defaultValues: defaults,
@@ -38,7 +42,7 @@ export function ScheduleForm({ defaults, rooms, endoscopists, nurses, onSchedule
 
   const onSubmit = form.handleSubmit((input) => {
     setLeftover([]);
-    schedule.mutate(input, {
+    schedule.mutate({ ...input, id: caseId }, {
       onSuccess: (created) => (onScheduled ? onScheduled(created) : navigate(`/cases/${created.id}`)),
       onError: (err) => setLeftover(applyServerErrors(err, form.setError, scheduleFieldPaths)),
     });
