@@ -70,6 +70,21 @@ describe('scheduling a case', () => {
     expect(scheduled).toHaveLength(1);
   });
 
+  it('writes a day list that names patients to the audit log, with the patients it showed', async () => {
+    const created = await post('/api/cases', scheduleInput(unit, team, { scheduledAt: '2031-07-08T10:00:00.000Z' }));
+    const listed = await get('/api/cases?date=2031-07-08');
+    expect(listed.body).toHaveLength(1);
+    await get('/api/cases?date=2031-07-09'); // an empty day shows no one
+    const entries = await t.db.select().from(auditLog).where(and(eq(auditLog.action, 'cases.list'), eq(auditLog.userId, team.nurse.id)));
+    const ours = entries.filter((e) => JSON.stringify(e.detail).includes('2031-07-0'));
+    expect(ours).toHaveLength(1);
+    expect(ours[0]).toMatchObject({
+      unitId: unit.id, entityType: 'unit', entityId: unit.id,
+      detail: { date: '2031-07-08', roomId: null, status: null, caseIds: [created.body.id], patientIds: [created.body.patient.id] },
+    });
+    expect(ours[0]!.ip).toMatch(/127\.0\.0\.1/);
+  });
+
   it('reuses the unit\'s patient for a hospital number already on file', async () => {
     const input = scheduleInput(unit, team);
     const first = await post('/api/cases', input);

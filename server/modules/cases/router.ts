@@ -13,7 +13,7 @@ export function casesRouter(ctx: ApiContext): Router {
   const { db, authenticate } = ctx;
 
   router.get('/cases', authenticate, permit('case.view'), async (req, res) => {
-    res.json(await listCases(db, actorOf(req), parseQuery(listCasesQuerySchema, req)));
+    res.json(await listCases(db, actorOf(req), parseQuery(listCasesQuerySchema, req), auditorFor(req)));
   });
   router.post('/cases', authenticate, permit('case.schedule'), async (req, res) => {
     const { summary, created } = await scheduleCase(db, actorOf(req), parseBody(scheduleCaseSchema, req), auditorFor(req));

@@ -13,8 +13,19 @@ import { toDetail, toSummary } from './mapping.ts';
 import { caseOfUnit } from './access.ts';
 import { cancelScheduledCase, findCaseRecord, insertCase, listCaseRecords, type CaseRecord } from './queries.ts';
 
-export async function listCases(db: Db, actor: Actor, q: { date?: string; roomId?: string; status?: CaseStatus }): Promise<CaseSummary[]> {
-  const rows = await listCaseRecords(db, actor.unitId, { ...q, timeZone: actor.timeZone });
+/**
+ * One day's cases of the unit. The list names patients (name, date of birth, hospital number), so a list
+ * that shows any is a view of their records: written to the audit log with the cases and patients shown.
+ */
+export async function listCases(db: Db, actor: Actor, q: { date?: string; roomId?: string; status?: CaseStatus }, audit: Auditor): Promise<CaseSummary[]> {
+  const date = q.date ?? new Intl.DateTimeFormat('en-CA', { timeZone: actor.timeZone }).format(new Date());
+  const rows = await listCaseRecords(db, actor.unitId, { ...q, date, timeZone: actor.timeZone });
+  if (rows.length) {
+    await audit(db, {
+      action: 'cases.list', entityType: 'unit', entityId: actor.unitId,
+      detail: { date, roomId: q.roomId ?? null, status: q.status ?? null, caseIds: rows.map((r) => r.id), patientIds: [...new Set(rows.map((r) => r.patientId))] },
+    });
+  }
   return rows.map(toSummary);
 }
 
