@@ -5,13 +5,16 @@ import { count, openCapture, scheduleCase, serverEvents, tap } from './capture-h
 const sofia = 'sofia.marin@kestrelbay.example';
 const daniel = 'daniel.kaur@kestrelbay.example';
 
-/** Sofia's tablet and Daniel's, both on the capture screen of a case scheduled for the test. */
+/**
+ * Sofia's tablet and Daniel's, both on the capture screen of a case scheduled for the test. Daniel's
+ * opens the address with the case id in capitals (typed, or from a scanner): the same case.
+ */
 async function twoTabletsOnANewCase(page: Page, secondTablet: (email: string) => Promise<Page>) {
   await login(page, sofia);
   const caseId = await scheduleCase(page);
   await openCapture(page, caseId);
   const other = await secondTablet(daniel);
-  await openCapture(other, caseId);
+  await openCapture(other, caseId.toUpperCase());
   return { caseId, other };
 }
 
