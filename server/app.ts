@@ -57,7 +57,7 @@ export function createApp(deps: AppDeps): Express {
 
   // better-auth reads the raw body itself: mounted before express.json() (STACK.md).
   app.use('/api/auth', setClientAddressHeader);
-  app.post('/api/auth/sign-in/email', signInLimiter(deps.signInLimit ?? { windowMs: 15 * 60_000, limit: 10 }));
+  app.post('/api/auth/sign-in/email', signInLimiter(deps.db, deps.signInLimit ?? { windowMs: 15 * 60_000, limit: 10 }));
   app.all('/api/auth/*splat', toNodeHandler(auth));
 
   app.use(express.json({ limit: JSON_LIMIT }));

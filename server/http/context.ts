@@ -3,6 +3,7 @@ import type { Logger } from 'pino';
 import type { Auth } from '../auth.ts';
 import type { Config } from '../config.ts';
 import type { Db } from '../db/client.ts';
+import type { SignInLimit } from './rate-limit.ts';
 
 /** What createApp needs; startServer and the tests build it. */
 export interface AppDeps {
@@ -11,7 +12,7 @@ export interface AppDeps {
   auth: Auth;
   logger: Logger;
   /** Failed sign-ins allowed per client address and window (default 10 per 15 minutes). */
-  signInLimit?: { windowMs: number; limit: number };
+  signInLimit?: SignInLimit;
 }
 
 /** What every module router receives: the deps and the one `authenticate` middleware. */

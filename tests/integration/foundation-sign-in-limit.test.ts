@@ -1,6 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
 import request from 'supertest';
+import { eq } from 'drizzle-orm';
+import type { Options } from 'express-rate-limit';
+import { rateLimitHits } from '#server/db/schema/index.ts';
+import { PostgresRateLimitStore } from '#server/http/rate-limit.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
+import { migratedDatabase } from './helpers/db.ts';
 import { asBrowser, buildMember, buildUnit, type TestMember } from './factories.ts';
 
 let t: TestContext;
@@ -31,5 +37,45 @@ describe('sign-in attempts are limited per client address', () => {
 
   it('limits only the sign-in route: the rest of the API still answers', async () => {
     expect((await request(t.app).get('/api/me').set(asBrowser())).status).toBe(401);
+  });
+});
+
+describe('the count is kept in PostgreSQL, so that every node of the server shares it', () => {
+  it('three failures spread over two nodes hold the address back on both', async () => {
+    const limit = { windowMs: 60_000, limit: 3, prefix: `shared-${randomUUID()}:` };
+    const a = await createTestContext({ signInLimit: limit });
+    const b = await createTestContext({ signInLimit: limit, databaseUrl: await migratedDatabase() });
+    try {
+      const member = await buildMember(a, await buildUnit(a), 'nurse');
+      const on = (node: TestContext, password: string) => request(node.app).post('/api/auth/sign-in/email').set(asBrowser()).send({ email: member.email, password });
+      expect((await on(a, 'wrong-password-123')).status).toBe(401);
+      expect((await on(b, 'wrong-password-123')).status).toBe(401);
+      expect((await on(b, member.password)).status).toBe(200); // a success counts for nothing
+      expect((await on(a, 'wrong-password-123')).status).toBe(401);
+      expect((await on(b, member.password)).status).toBe(429);
+      expect((await on(a, member.password)).status).toBe(429);
+    } finally {
+      await a.close();
+      await b.close();
+    }
+  });
+});
+
+describe('the PostgreSQL counter', () => {
+  it('counts hits in a window, takes one back, and starts again once the window has ended', async () => {
+    const store = new PostgresRateLimitStore(t.db, `store-${randomUUID()}:`);
+    store.init({ windowMs: 60_000 } as Options);
+    expect((await store.increment('198.51.100.4')).totalHits).toBe(1);
+    const second = await store.increment('198.51.100.4');
+    expect(second.totalHits).toBe(2);
+    expect(second.resetTime!.getTime()).toBeGreaterThan(Date.now() + 50_000);
+    await store.decrement('198.51.100.4');
+    expect((await store.increment('198.51.100.4')).totalHits).toBe(2);
+    expect((await store.increment('198.51.100.5')).totalHits).toBe(1); // another address counts alone
+    // The window ends: the next hit is the first of a new one.
+    await t.db.update(rateLimitHits).set({ resetAt: new Date(Date.now() - 1000) }).where(eq(rateLimitHits.key, `${store.prefix}198.51.100.4`));
+    expect((await store.increment('198.51.100.4')).totalHits).toBe(1);
+    await store.resetKey('198.51.100.4');
+    expect((await store.increment('198.51.100.4')).totalHits).toBe(1);
   });
 });

@@ -11,3 +11,4 @@ export * from './attachments.ts';
 export * from './reports.ts';
 export * from './review-annotations.ts';
 export * from './audit.ts';
+export * from './rate-limits.ts';
