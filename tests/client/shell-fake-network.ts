@@ -27,8 +27,6 @@ export function fakeNetwork() {
   vi.stubGlobal('fetch', fetchImpl);
   return {
     sent,
-    /** The routes, first match wins (a test may take one out to answer differently). */
-    routes,
     on(method: string, path: string, answer: () => Response | Promise<Response>) {
       routes.push({ method, path, answer });
       return this;

@@ -45,27 +45,28 @@ async function checkTeamAndRoom(db: Db, unitId: string, input: ScheduleCaseInput
  */
 function repeatIssues(row: CaseRecord, actor: Actor, input: ScheduleCaseInput): Issue[] {
   if (row.createdBy !== actor.userId) return [{ path: 'id', message: 'Already used for another case' }];
-  const stored: Record<string, unknown> = {
-    'patient.hospitalNumber': row.hospitalNumber, procedureType: row.procedureType, indication: row.indication,
-    'lesion.site': row.lesionSite, 'lesion.sizeMm': row.lesionSizeMm, 'lesion.paris': row.lesionParis,
-    roomId: row.roomId, scheduledAt: row.scheduledAt.getTime(), sedation: row.sedation,
-    endoscopistId: row.endoscopistId, nurseId: row.nurseId,
-  };
-  const sent: Record<string, unknown> = {
-    'patient.hospitalNumber': input.patient.hospitalNumber, procedureType: input.procedureType, indication: input.indication,
-    'lesion.site': input.lesion.site, 'lesion.sizeMm': input.lesion.sizeMm, 'lesion.paris': input.lesion.paris,
-    roomId: input.roomId, scheduledAt: Date.parse(input.scheduledAt), sedation: input.sedation,
-    endoscopistId: input.endoscopistId, nurseId: input.nurseId,
-  };
-  return Object.keys(stored).filter((k) => stored[k] !== sent[k]).map((path) => ({ path, message: 'Differs from the case this form already scheduled' }));
+  const fields: [path: string, stored: unknown, sent: unknown][] = [
+    ['patient.hospitalNumber', row.hospitalNumber, input.patient.hospitalNumber],
+    ['procedureType', row.procedureType, input.procedureType],
+    ['indication', row.indication, input.indication],
+    ['lesion.site', row.lesionSite, input.lesion.site],
+    ['lesion.sizeMm', row.lesionSizeMm, input.lesion.sizeMm],
+    ['lesion.paris', row.lesionParis, input.lesion.paris],
+    ['roomId', row.roomId, input.roomId],
+    ['scheduledAt', row.scheduledAt.getTime(), Date.parse(input.scheduledAt)],
+    ['sedation', row.sedation, input.sedation],
+    ['endoscopistId', row.endoscopistId, input.endoscopistId],
+    ['nurseId', row.nurseId, input.nurseId],
+  ];
+  return fields.filter(([, stored, sent]) => stored !== sent).map(([path]) => ({ path, message: 'Differs from the case this form already scheduled' }));
 }
 
 /**
  * The case an earlier request with this id made, or null when there is none. A case of another unit
  * with the id is answered as taken, and shows nothing of that case.
  */
-async function earlierSchedule(db: Db, actor: Actor, input: ScheduleCaseInput & { id: string }): Promise<CaseSummary | null> {
-  const row = await findCaseRecord(db, actor.unitId, input.id);
+async function earlierSchedule(db: Db, actor: Actor, id: string, input: ScheduleCaseInput): Promise<CaseSummary | null> {
+  const row = await findCaseRecord(db, actor.unitId, id);
   if (!row) return null;
   const issues = repeatIssues(row, actor, input);
   if (issues.length) throw conflict('A case was already scheduled with this id and other details; open it from the day list', issues);
@@ -78,8 +79,7 @@ async function earlierSchedule(db: Db, actor: Actor, input: ScheduleCaseInput & 
  */
 export async function scheduleCase(db: Db, actor: Actor, input: ScheduleCaseInput, audit: Auditor): Promise<{ summary: CaseSummary; created: boolean }> {
   const requestId = input.id;
-  const repeat = requestId ? () => earlierSchedule(db, actor, { ...input, id: requestId }) : async () => null;
-  const earlier = await repeat();
+  const earlier = requestId ? await earlierSchedule(db, actor, requestId, input) : null;
   if (earlier) return { summary: earlier, created: false };
   const issues = await checkTeamAndRoom(db, actor.unitId, input);
   if (issues.length) throw badRequest(`Cannot schedule: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}`, issues);
@@ -100,7 +100,7 @@ export async function scheduleCase(db: Db, actor: Actor, input: ScheduleCaseInpu
   } catch (err) {
     if (!requestId || !isUniqueViolation(err, 'cases_pkey')) throw err;
     // The same request twice at once: the one stored answers both. Else the id is another unit's.
-    const raced = await repeat();
+    const raced = await earlierSchedule(db, actor, requestId, input);
     if (raced) return { summary: raced, created: false };
     throw conflict('This case id is taken; schedule the case again from a new form', [{ path: 'id', message: 'Already used' }]);
   }
