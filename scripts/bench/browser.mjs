@@ -22,7 +22,7 @@ export function demoPassword(root, email) {
 
 /**
  * A tablet: a browser context in landscape 1280×800 with touch, signed in as `email` through the auth
- * API (its cookie is the context's own). Service workers are blocked: the bench measures the app, not
+ * API (its cookie is the context's own), or signed out when `email` is null. Service workers are blocked: the bench measures the app, not
  * a first-visit precache running beside it.
  */
 export async function tabletContext(browser, { origin, root, email, bypassCSP = false }) {
@@ -30,6 +30,7 @@ export async function tabletContext(browser, { origin, root, email, bypassCSP = 
     baseURL: origin, viewport: { width: 1280, height: 800 }, hasTouch: true, isMobile: false,
     serviceWorkers: 'block', bypassCSP,
   });
+  if (email === null) return context;
   const res = await context.request.post('/api/auth/sign-in/email', { data: { email, password: demoPassword(root, email) }, headers: { origin } });
   if (!res.ok()) throw new Error(`Sign-in of ${email} failed: ${res.status()} ${await res.text()}`);
   return context;

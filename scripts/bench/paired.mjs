@@ -3,12 +3,14 @@
 // moment of this machine (other work on it shifts both alike, not one of them).
 import { join } from 'node:path';
 import { centreOf, installPaintProbe, installWatchProbe, touchTap } from './probe.mjs';
+import { openScreenFloor } from './screen-floor.mjs';
 import { waitInPage } from './series.mjs';
 import { jitter } from './stats.mjs';
 import { tabletContext } from './browser.mjs';
 
 const COUNTER = '[data-testid="count-clips-deployed"]';
-const ROW = '[data-testid="recent-events"] > li';
+const LIST = '[data-testid="recent-events"]';
+const ROW = `${LIST} > li`;
 const BUTTON = '[data-tap="clip-deployed"]';
 
 /** Open the capture screen and wait until it is connected and its newest row is event `newestId`. */
@@ -26,6 +28,7 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
   const floorCtx = await tabletContext(browser, { origin, root, email: emailA, bypassCSP: true });
   const a = await tabletContext(browser, { origin, root, email: emailA });
   const b = await tabletContext(browser, { origin, root, email: emailA === emailB ? emailA : emailB });
+  const screenCtx = await tabletContext(browser, { origin, root, email: null });
   try {
     const floor = await floorCtx.newPage();
     await floor.goto('/bench/frame-floor.html');
@@ -42,8 +45,15 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
     await pageA.evaluate(() => performance.clearMarks('sync:tap-durable'));
     const buttonAt = await pageA.evaluate(centreOf, BUTTON);
 
+    // The same screen as a static copy with a bare handler (screen-floor.mjs), opened before any tap.
+    const screen = await openScreenFloor(screenCtx, pageA, { button: BUTTON, counter: COUNTER, list: LIST });
+    await screen.evaluate(installPaintProbe, { target: BUTTON, counter: COUNTER, row: ROW });
+    const cdpS = await screenCtx.newCDPSession(screen);
+    const screenAt = await screen.evaluate(centreOf, BUTTON);
+
     const floorTap = async (k) => { await touchTap(cdpF, tapAt); await waitInPage(floor, (n) => window.__benchProbe.samples.length >= n, k); };
     const floorPut = async (k) => { await touchTap(cdpF, putAt); await waitInPage(floor, (n) => window.benchIdbSamples.length >= n, k); };
+    const screenTap = async (k) => { await touchTap(cdpS, screenAt); await waitInPage(screen, (n) => window.__benchProbe.samples.length >= n, k); };
     const appTap = async (k) => { await touchTap(cdpA, buttonAt); await waitInPage(pageA, (n) => window.__benchProbe.samples.length >= n, k); };
     const read = (page, expr) => page.evaluate(expr);
 
@@ -61,19 +71,21 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
     const marks = (await read(pageA, () => performance.getEntriesByName('sync:tap-durable').map((m) => m.startTime))).slice(warmup);
     const durable = tapTimes.map((t0, i) => marks[i] - t0);
 
-    // CPU 4× slower on both pages (DevTools CPU throttling): frame_floor_cpu4x and tap_paint_cpu4x.
-    await cdpF.send('Emulation.setCPUThrottlingRate', { rate: 4 });
-    await cdpA.send('Emulation.setCPUThrottlingRate', { rate: 4 });
+    // CPU 4× slower on every page (DevTools CPU throttling): frame_floor_cpu4x, screen_floor_cpu4x and
+    // tap_paint_cpu4x, in turns.
+    for (const cdp of [cdpF, cdpS, cdpA]) await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
     const f0 = frame.length + warmup;
     const p0 = paint.length + warmup;
     for (let i = 1; i <= warmup + taps; i++) {
       await floorTap(f0 + i); await jitter();
+      await screenTap(i); await jitter();
       await appTap(p0 + i); await jitter();
     }
     const frame4 = (await read(floor, () => window.__benchProbe.samples)).slice(f0 + warmup);
+    const screen4 = (await read(screen, () => window.__benchProbe.samples)).slice(warmup);
     const paint4 = (await read(pageA, () => window.__benchProbe.samples)).slice(p0 + warmup);
-    await cdpF.send('Emulation.setCPUThrottlingRate', { rate: 1 });
-    await cdpA.send('Emulation.setCPUThrottlingRate', { rate: 1 });
+    for (const cdp of [cdpF, cdpS, cdpA]) await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
+    await screen.close();
 
     // a_to_b: a tap on tablet A → the first frame on tablet B that shows it, through the server and
     // PostgreSQL; raw_rtt in turns with it: bare emit-with-ack round trips.
@@ -95,10 +107,11 @@ export async function measurePaired(browser, { origin, root, caseId, newestId, t
       for (let r = 0; r < 3; r++) { const ms = await floor.evaluate(() => window.benchRttPing()); if (i >= warmup) rtt.push(ms); }
       await jitter();
     }
-    return { frame, frame4, idb, paint, paint4, durable, aToB, rtt };
+    return { frame, frame4, screen4, idb, paint, paint4, durable, aToB, rtt };
   } finally {
     await floorCtx.close();
     await a.close();
     await b.close();
+    await screenCtx.close();
   }
 }
