@@ -90,7 +90,13 @@ export const recordViewSchema = z.object({
   })),
   specimens: z.array(z.object({
     /** The listed specimen's id, or null for a retrieval tapped but not (yet) in the specimen list. */
-    id: uuidSchema.nullable(), label: z.string().nullable(), retrievedAt: iso.nullable(),
+    id: uuidSchema.nullable(),
+    /**
+     * A retrieval tapped but not listed: the specimen id its tap made, for the list to take it under (so
+     * the listed specimen is the tapped one, with its time); null on listed rows and taps that made none.
+     */
+    tapSpecimenId: uuidSchema.nullable(),
+    label: z.string().nullable(), retrievedAt: iso.nullable(),
     retrievalMethod: retrievalMethodSchema.nullable(), pieces: z.number().int().nullable(),
     longMm: z.number().nullable(), shortMm: z.number().nullable(), areaMm2: z.number().nullable(),
     containerId: z.string().nullable(), handoffStatus: handoffStatusSchema.nullable(),

@@ -48,6 +48,17 @@ describe('the capture screen', () => {
     await eventually(() => expect(server.log(caseId).map((e) => e.kind)).toEqual(['bleed', 'bleed']));
   });
 
+  it('gives each specimen out a specimen id of its own, for the specimen list to take it under', async () => {
+    const { caseId, server } = await openTablet();
+    await tap('specimen-retrieved');
+    await tap('specimen-retrieved');
+    await eventually(() => expect(server.log(caseId)).toHaveLength(2));
+    const ids = server.log(caseId).map((e) => (e.payload as { specimenId?: string }).specimenId);
+    // UUIDv7: version nibble 7, variant bits 10 (RFC 9562 §5.7).
+    for (const id of ids) expect(id).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
+    expect(new Set(ids).size).toBe(2);
+  });
+
   it('ties a haemostasis tap to the open bleed, so the board shows it controlled', async () => {
     const { caseId, server } = await openTablet();
     await tap('bleed');

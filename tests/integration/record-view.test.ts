@@ -3,7 +3,7 @@ import { and, eq } from 'drizzle-orm';
 import { auditLog } from '#server/db/schema/index.ts';
 import { recordViewSchema, type RecordView } from '#shared/schemas/record.ts';
 import { createTestContext, type TestContext } from './helpers/app.ts';
-import { api, buildWard, caseFor, recordScenario, type Ward } from './record-fixtures.ts';
+import { api, buildWard, caseFor, newId, record, recordScenario, tap, type Ward } from './record-fixtures.ts';
 
 let t: TestContext;
 let w: Ward;
@@ -73,6 +73,27 @@ describe('the record of a case', () => {
     expect(view.notes.map((x) => x.kind)).toEqual(['specimen_area', 'resection_speed', 'defect_perimeter']);
     for (const note of view.notes) expect(note.caution).toMatch(/not advice/);
     expect(view.caution).toMatch(/no clinical advice/);
+  });
+
+  it('gives a retrieval tapped but not listed the id its tap made, and joins it to the specimen listed under that id', async () => {
+    const c = await caseFor(t, w, { procedureType: 'emr', status: 'recording' });
+    const n = w.members.nurse.id;
+    const madeId = newId();
+    await record(t, w.cookies.nurse, c.id, [
+      tap(c.id, n, 'specimen_retrieved', 10, { method: 'snare', pieces: 1, specimenId: madeId }),
+      tap(c.id, n, 'specimen_retrieved', 12, { method: 'net' }), // a tap from before taps made specimen ids
+    ]);
+    const read = async () => recordViewSchema.parse((await api(t, w.cookies.nurse).get(`/api/cases/${c.id}/record`)).body).specimens;
+    expect(await read()).toEqual([
+      expect.objectContaining({ id: null, tapSpecimenId: madeId, retrievedAt: '2025-03-14T09:10:00.000Z', retrievalMethod: 'snare', pieces: 1 }),
+      expect.objectContaining({ id: null, tapSpecimenId: null, retrievedAt: '2025-03-14T09:12:00.000Z', retrievalMethod: 'net' }),
+    ]);
+    const listed = await api(t, w.cookies.nurse).post(`/api/cases/${c.id}/specimens`, { id: madeId, label: 'A', retrievalMethod: 'snare', pieces: 1 });
+    expect(listed.status).toBe(201);
+    expect(await read()).toEqual([
+      expect.objectContaining({ id: madeId, tapSpecimenId: null, label: 'A', retrievedAt: '2025-03-14T09:10:00.000Z' }),
+      expect.objectContaining({ id: null, tapSpecimenId: null, retrievedAt: '2025-03-14T09:12:00.000Z' }),
+    ]);
   });
 
   it('says who recorded what and when, with their names', () => {

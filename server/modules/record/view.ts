@@ -176,12 +176,14 @@ function specimenRows(record: CaseRecord, listed: SpecimenRow[], byId: Map<strin
     const specimenId = e?.kind === 'specimen_retrieved' ? e.payload.specimenId : undefined;
     if (specimenId && !tapOf.has(specimenId)) tapOf.set(specimenId, s);
   }
-  const linkedEvents = new Set([...tapOf.values()].map((r) => r.eventId));
+  // Only a tap whose specimen is listed is shown in the listed row; the others keep rows of their own.
+  const listedIds = new Set(listed.map((s) => s.id));
+  const linkedEvents = new Set([...tapOf].filter(([id]) => listedIds.has(id)).map(([, r]) => r.eventId));
   const rows: RecordView['specimens'] = listed.map((s) => {
     const tapped = tapOf.get(s.id);
     const axes = s.longMm != null && s.shortMm != null ? { longMm: s.longMm, shortMm: s.shortMm } : { longMm: tapped?.longMm ?? s.longMm, shortMm: tapped?.shortMm ?? s.shortMm };
     return {
-      id: s.id, label: s.label, retrievedAt: tapped ? iso(tapped.atMs) : null,
+      id: s.id, tapSpecimenId: null, label: s.label, retrievedAt: tapped ? iso(tapped.atMs) : null,
       retrievalMethod: (s.retrievalMethod as RecordView['specimens'][number]['retrievalMethod']) ?? tapped?.method ?? null,
       pieces: s.pieces ?? tapped?.pieces ?? null, ...axes,
       areaMm2: axes.longMm != null && axes.shortMm != null ? ellipseAreaMm2(axes.longMm, axes.shortMm) : null,
@@ -190,7 +192,12 @@ function specimenRows(record: CaseRecord, listed: SpecimenRow[], byId: Map<strin
   });
   for (const s of record.specimens) {
     if (linkedEvents.has(s.eventId)) continue;
-    rows.push({ id: null, label: null, retrievedAt: iso(s.atMs), retrievalMethod: s.method, pieces: s.pieces, longMm: s.longMm, shortMm: s.shortMm, areaMm2: s.areaMm2, containerId: null, handoffStatus: null });
+    const e = byId.get(s.eventId);
+    const made = e?.kind === 'specimen_retrieved' ? e.payload.specimenId : undefined;
+    rows.push({
+      id: null, tapSpecimenId: made && !listedIds.has(made) ? made : null, label: null, retrievedAt: iso(s.atMs), retrievalMethod: s.method,
+      pieces: s.pieces, longMm: s.longMm, shortMm: s.shortMm, areaMm2: s.areaMm2, containerId: null, handoffStatus: null,
+    });
   }
   return rows;
 }

@@ -26,7 +26,7 @@ export function Component() {
     <Page title="Specimens" wide actions={<Link to={`/cases/${id}/record`} className={buttonClass('secondary', 'md')}>The record</Link>}>
       {patient && <p className="mb-4 text-lg font-bold" data-testid="specimens-patient">{patient}</p>}
       {record && !open && <p role="status" className="mb-4 rounded-control border-2 border-line-strong bg-sunken p-3 font-bold">The record is {record.case.status}: the list can be read and labels printed, not changed.</p>}
-      <SpecimenList caseId={id} canWrite={open && can(me.role, 'event.record')} />
+      <SpecimenList caseId={id} canWrite={open && can(me.role, 'event.record')} tapped={record?.specimens.filter((s) => s.id === null)} timeZone={record?.timeZone} />
     </Page>
   );
 }

@@ -1,3 +1,4 @@
+import { v7 as uuidv7 } from 'uuid';
 import type { EventKind, PayloadOf } from '#shared/schemas/events.ts';
 import { detailFields, type DetailField } from './details.ts';
 
@@ -85,6 +86,15 @@ export const tapGroups: TapGroup[] = [
 ];
 
 export const allButtons: TapButton[] = [...primaryButtons, ...tapGroups.flatMap((g) => g.buttons)];
+
+/**
+ * The payload a tap of `btn` starts with: its fixed fields, and for a specimen out a new specimen id,
+ * so that the specimen listed later (its label, container and hand-off) can be the one tapped, and its
+ * container label carry the time it came out.
+ */
+export function tapPayload(btn: TapButton): Record<string, unknown> {
+  return btn.kind === 'specimen_retrieved' ? { ...btn.fixed, specimenId: uuidv7() } : { ...btn.fixed };
+}
 
 /** The button that made an event, for the label of a row (clip deployed vs misfired). */
 export function buttonFor(kind: EventKind, payload: Record<string, unknown>): TapButton | undefined {

@@ -13,7 +13,7 @@ import { useKeptPairs } from '../hooks/use-kept-pairs.ts';
 import { useWakeLock } from '../hooks/use-wake-lock.ts';
 import { afterPaint } from '../hooks/after-paint.ts';
 import { haptic, vibrate } from '../hooks/haptics.ts';
-import type { TapButton } from '../vocabulary.ts';
+import { tapPayload, type TapButton } from '../vocabulary.ts';
 import { CaptureHeader, useClockOffset } from './capture-header.tsx';
 import { CounterBoard } from './counter-board.tsx';
 import type { ItemControl } from './detail-fields.tsx';
@@ -107,11 +107,11 @@ const CaptureBody = memo(function CaptureBody({ caseId, summary, ItemInput, item
 
   const onTap = useCallback((btn: TapButton) => {
     if (btn.sheetFirst) {
-      setPanel({ mode: 'create', target: { key: `new-${++tapSeq}`, kind: btn.kind, label: btn.label, timeMs: Date.now() + offsetMs, payload: { ...btn.fixed }, voided: false } });
+      setPanel({ mode: 'create', target: { key: `new-${++tapSeq}`, kind: btn.kind, label: btn.label, timeMs: Date.now() + offsetMs, payload: tapPayload(btn), voided: false } });
       return;
     }
     vibrate(haptic.tap);
-    const payload: Record<string, unknown> = { ...btn.fixed };
+    const payload = tapPayload(btn);
     if (btn.kind === 'haemostasis') {
       const open = tally.current?.openBleed;
       if (open) payload.bleedId = open.bleedId;

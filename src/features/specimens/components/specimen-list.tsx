@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { formatArea, formatAxes } from '#shared/schemas/record.ts';
+import { formatArea, formatAxes, formatClock, type RecordView } from '#shared/schemas/record.ts';
 import {
   createSpecimenSchema, handoffStatuses, handoffStatusLabels, retrievalMethodLabels, type HandoffStatus, type Specimen,
 } from '#shared/schemas/specimens.ts';
@@ -12,21 +12,68 @@ import { useToast } from '@/components/ui/toast.tsx';
 import { ApiError, errorMessage } from '@/lib/api.ts';
 import { labelPdfUrl, useAddSpecimen, useChangeSpecimen, useSpecimens } from '../api/specimens.ts';
 
-type Props = { caseId: string; canWrite: boolean };
+type TappedRow = RecordView['specimens'][number];
+type Props = {
+  caseId: string;
+  canWrite: boolean;
+  /** The record's retrievals tapped in the room and not listed yet (its rows without an id). */
+  tapped?: TappedRow[];
+  timeZone?: string;
+};
+
+const labelAt = (n: number) => String.fromCharCode(65 + (n % 26));
 
 /** The case's specimens: how each came out, its size, its container label and where it is on its way to the laboratory. */
-export function SpecimenList({ caseId, canWrite }: Props) {
+export function SpecimenList({ caseId, canWrite, tapped = [], timeZone = 'UTC' }: Props) {
   const query = useSpecimens(caseId);
   if (query.isPending) return <Loading label="Loading the specimens" />;
   if (query.error) return <Banner tone="danger" title="The specimens could not be read">{errorMessage(query.error)}</Banner>;
+  const nextLabel = labelAt(query.data.length);
   return (
     <div className="flex flex-col gap-6">
       {query.data.length === 0 && <p className="text-lg text-muted">No specimen is listed yet.</p>}
       <ul className="grid gap-4 lg:grid-cols-2" aria-label="Specimens">
         {query.data.map((s) => <SpecimenCard key={s.id} caseId={caseId} specimen={s} canWrite={canWrite} />)}
       </ul>
-      {canWrite && <AddSpecimen caseId={caseId} nextLabel={String.fromCharCode(65 + (query.data.length % 26))} />}
+      {tapped.length > 0 && <TappedRetrievals caseId={caseId} rows={tapped} canWrite={canWrite} nextLabel={nextLabel} timeZone={timeZone} />}
+      {canWrite && <AddSpecimen caseId={caseId} nextLabel={nextLabel} />}
     </div>
+  );
+}
+
+/**
+ * Specimens tapped out in the room that the list does not hold yet. Listing one keeps the id its tap
+ * made, so the record joins the two (one specimen, with the tap's time on its label), not two rows.
+ */
+function TappedRetrievals({ caseId, rows, canWrite, nextLabel, timeZone }: { caseId: string; rows: TappedRow[]; canWrite: boolean; nextLabel: string; timeZone: string }) {
+  const add = useAddSpecimen(caseId);
+  const notify = useToast();
+  const list = (r: TappedRow & { tapSpecimenId: string }) => add.mutate(
+    { id: r.tapSpecimenId, label: nextLabel, retrievalMethod: r.retrievalMethod, pieces: r.pieces, longMm: r.longMm, shortMm: r.shortMm },
+    { onSuccess: (s) => notify(`Specimen ${s.label} listed`), onError: (e) => notify(errorMessage(e), 'danger') },
+  );
+  return (
+    <section className="flex flex-col gap-3" aria-label="Tapped in the room, not listed">
+      <h3 className="text-xl font-bold">Tapped in the room, not listed</h3>
+      <ul className="flex flex-col gap-2">
+        {rows.map((r, i) => {
+          const { tapSpecimenId } = r;
+          return (
+            <li key={tapSpecimenId ?? `tap-${i}`} className="flex flex-wrap items-center justify-between gap-3 rounded-control border-2 border-line-strong bg-sunken p-3">
+              <span>
+                <span className="font-bold">Out at {r.retrievedAt ? formatClock(r.retrievedAt, timeZone) : '—'}</span>
+                {' · '}{r.retrievalMethod ? retrievalMethodLabels[r.retrievalMethod] : 'method not said'}
+                {r.pieces != null && ` · ${r.pieces} ${r.pieces === 1 ? 'piece' : 'pieces'}`}
+                {r.longMm != null && ` · ${formatAxes(r.longMm, r.shortMm)}`}
+              </span>
+              {canWrite && (tapSpecimenId
+                ? <Button busy={add.isPending} onClick={() => list({ ...r, tapSpecimenId })}>List it as specimen {nextLabel}</Button>
+                : <span className="text-sm text-muted">Tapped without a specimen id: list it with the form below.</span>)}
+            </li>
+          );
+        })}
+      </ul>
+    </section>
   );
 }
 
@@ -80,6 +127,12 @@ function AddSpecimen({ caseId, nextLabel }: { caseId: string; nextLabel: string 
   const empty: Draft = { label: nextLabel, retrievalMethod: '', pieces: '', longMm: '', shortMm: '' };
   const [d, setD] = useState<Draft>(empty);
   const [errors, setErrors] = useState<Record<string, string>>({});
+  // A specimen listed elsewhere (a tapped one, another tablet) moves the suggested label on, unless it was typed over.
+  const [suggested, setSuggested] = useState(nextLabel);
+  if (suggested !== nextLabel) {
+    setSuggested(nextLabel);
+    if (d.label === suggested) setD((x) => ({ ...x, label: nextLabel }));
+  }
   const submit = () => {
     const parsed = createSpecimenSchema.safeParse({
       label: d.label, retrievalMethod: d.retrievalMethod || null, pieces: num(d.pieces), longMm: num(d.longMm), shortMm: num(d.shortMm),
