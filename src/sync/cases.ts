@@ -77,13 +77,34 @@ export class CaseRegistry {
     return true;
   }
 
-  /** Last viewer gone: leave the room (the events stay in IndexedDB). */
+  /**
+   * Last viewer gone: leave the room, and let the case go from memory (the events stay in IndexedDB; a
+   * later open reads them back and catches up). A tablet left on all day opens case after case.
+   */
   close(caseId: string): void {
     const c = this.cases.get(caseId);
     if (!c || c.refs === 0) return;
-    if (--c.refs === 0 && this.d.socket.connected) {
+    if (--c.refs > 0) return;
+    if (this.d.socket.connected) {
       request(this.d.socket, SyncMessages.caseLeave, { caseId }, okAckSchema, this.d.ackTimeoutMs).catch(() => undefined);
     }
+    // After the task: a screen unsubscribes from the view just after it closes the case.
+    setTimeout(() => this.release(caseId), 0);
+  }
+
+  /** The case ids held in memory now. */
+  held(): string[] { return [...this.cases.keys()]; }
+
+  /**
+   * Drop a case nobody shows from memory: no viewer, no join running, no one listening to its view.
+   * The view object itself stays (a screen may hold it from its render); its snapshot is let go and is
+   * rebuilt from a fresh, unloaded state when next read.
+   */
+  private release(caseId: string): void {
+    const c = this.cases.get(caseId);
+    if (!c || c.refs > 0 || this.joining.has(caseId) || (this.views.get(caseId)?.listenerCount ?? 0) > 0) return;
+    this.cases.delete(caseId);
+    this.views.get(caseId)?.invalidate();
   }
 
   /** Join every case that has a viewer (after a connect). */
@@ -93,6 +114,8 @@ export class CaseRegistry {
 
   /** Join a case's room and read every page after the contiguous sequence held. */
   async join(caseId: string): Promise<void> {
+    // Closed again before its join began (a screen opened and left at once): no room to hear.
+    if ((this.cases.get(caseId)?.refs ?? 0) === 0) return;
     if (this.joining.has(caseId)) { this.rejoin.add(caseId); return; }
     this.joining.add(caseId);
     const c = this.state(caseId);
@@ -117,6 +140,7 @@ export class CaseRegistry {
     } finally {
       this.joining.delete(caseId);
       if (this.rejoin.delete(caseId) && c.refs > 0 && this.d.socket.connected) void this.join(caseId);
+      else this.release(caseId);
     }
   }
 

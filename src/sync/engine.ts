@@ -286,6 +286,9 @@ export class SyncEngine {
   /** Stop showing a case (the last viewer left): leave its room; what is held stays in IndexedDB. */
   closeCase(caseId: string): void { this.cases.close(caseId); }
 
+  /** The cases held in memory now (those shown, and for a moment those just closed). */
+  casesInMemory(): string[] { return this.cases.held(); }
+
   /** The case's timeline as a subscribe/getSnapshot store. */
   caseView(caseId: string): Observable<CaseSnapshot> { return this.cases.view(caseId); }
 

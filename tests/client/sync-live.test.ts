@@ -189,4 +189,48 @@ describe('live sync between tablets', () => {
     await acceptedOn(tablet, caseId, tap.id);
     expect(tablet.status.getSnapshot().sessionEnded).toBe(false);
   });
+
+  it('lets a case go from memory when its last screen closes it, and shows it all again when reopened', async () => {
+    server = await startTestSyncServer();
+    const { caseId, tablet: a } = await connectedTablet(server);
+    const b = startTablet(server.url, { dbName: newDbName() });
+    await Promise.all([a.openCase(caseId), a.openCase(caseId), b.openCase(caseId)]); // two screens on A
+    const mine = await a.recordTap({ caseId, kind: 'clip_fired', payload: { outcome: 'deployed' } });
+    const theirs = await b.recordTap({ caseId, kind: 'bleed', payload: {} });
+    const accepted = () => a.caseView(caseId).getSnapshot().items.filter((i) => i.state === 'accepted').map((i) => i.id).sort();
+    await eventually(() => expect(accepted()).toEqual([mine.id, theirs.id].sort()));
+
+    a.closeCase(caseId); // one screen of two: still shown
+    await new Promise((r) => setTimeout(r, 20));
+    expect(a.casesInMemory()).toContain(caseId);
+    a.closeCase(caseId);
+    await eventually(() => expect(a.casesInMemory()).not.toContain(caseId));
+    expect(a.caseView(caseId).getSnapshot().loaded).toBe(false);
+
+    // A tap on B meanwhile: reopened, A reads its own copy back from IndexedDB and catches up with the rest.
+    const later = await b.recordTap({ caseId, kind: 'haemostasis', payload: { achieved: true } });
+    await a.openCase(caseId);
+    await eventually(() => expect(accepted()).toEqual([mine.id, theirs.id, later.id].sort()));
+  });
+
+  it('keeps a case in memory while something still listens to it', async () => {
+    server = await startTestSyncServer();
+    const { caseId, tablet } = await connectedTablet(server);
+    const stop = tablet.caseView(caseId).subscribe(() => undefined);
+    await tablet.openCase(caseId);
+    tablet.closeCase(caseId);
+    await new Promise((r) => setTimeout(r, 20));
+    expect(tablet.casesInMemory()).toContain(caseId);
+    stop();
+  });
+
+  it('does not stay in the room of a case closed again before its join began', async () => {
+    server = await startTestSyncServer();
+    const { caseId, tablet } = await connectedTablet(server);
+    const opening = tablet.openCase(caseId);
+    tablet.closeCase(caseId); // the screen left at once
+    await opening;
+    await new Promise((r) => setTimeout(r, 50));
+    expect((await server.io.in(caseRoom(caseId)).fetchSockets()).length).toBe(0);
+  });
 });
