@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { member, user } from '#server/db/schema/index.ts';
 import { ORIGIN, createTestContext, type TestContext } from './helpers/app.ts';
 import { asBrowser, buildMember, buildUnit, signIn, tag, type TestUnit } from './factories.ts';
@@ -57,6 +57,31 @@ describe('inviting a person into the unit', () => {
     const [row] = await t.db.select().from(member).where(and(eq(member.organizationId, unit.id), eq(member.userId, res.body.userId)));
     expect(row?.role).toBe('supervisor');
     expect((await request(t.app).get(`/api/invitations/${id}`)).body.status).toBe('accepted');
+  });
+
+  it('removes the account it made when joining the unit fails, so the invitee can accept the same invitation again', async () => {
+    const email = `nurse-${tag()}@ledgerline.test`;
+    await invite(email, 'nurse');
+    const id = linkIn(email, `${ORIGIN}/invite/`)!.split('/').pop()!;
+    // A fault injected for this invitee only: the database refuses their membership row. (A function
+    // body takes no parameters; the address is our own, made by tag().)
+    const fn = sql.identifier(`refuse_member_${tag().toLowerCase().replace(/[^a-z0-9]/g, '')}`);
+    await t.db.execute(sql`create function ${fn}() returns trigger language plpgsql as $$ begin
+      if exists (select 1 from "user" where id = new.user_id and email = ${sql.raw(`'${email}'`)}) then raise exception 'injected fault'; end if;
+      return new; end $$`);
+    await t.db.execute(sql`create trigger ${fn} before insert on member for each row execute function ${fn}()`);
+    const accept = () => request(t.app).post(`/api/invitations/${id}/accept`).set(asBrowser()).send({ name: 'Invented Nurse', password: 'a-long-enough-secret' });
+    try {
+      expect((await accept()).status).toBe(500);
+    } finally {
+      await t.db.execute(sql`drop trigger ${fn} on member`);
+      await t.db.execute(sql`drop function ${fn}()`);
+    }
+    expect(await t.db.select().from(user).where(eq(user.email, email))).toEqual([]);
+    expect((await request(t.app).get(`/api/invitations/${id}`)).body.status).toBe('pending');
+    const again = await accept();
+    expect(again.status).toBe(201);
+    expect(again.body).toMatchObject({ unit: { id: unit.id }, role: 'nurse' });
   });
 
   it('a unit of 100 members takes one more (the auth library\'s default cap refused it only at the acceptance)', async () => {
