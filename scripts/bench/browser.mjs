@@ -22,8 +22,8 @@ export function demoPassword(root, email) {
 
 /**
  * A tablet: a browser context in landscape 1280×800 with touch, signed in as `email` through the auth
- * API (its cookie is the context's own), or signed out when `email` is null. Service workers are blocked: the bench measures the app, not
- * a first-visit precache running beside it.
+ * API (its cookie is the context's own), or signed out when `email` is null. Service workers are
+ * blocked: the bench measures the app, not a first-visit precache running beside it.
  */
 export async function tabletContext(browser, { origin, root, email, bypassCSP = false }) {
   const context = await browser.newContext({
