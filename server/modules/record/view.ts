@@ -170,15 +170,18 @@ function usageRows(src: RecordSources, record: CaseRecord, byId: Map<string, Tim
  * list has none), then the retrievals tapped but not listed.
  */
 function specimenRows(record: CaseRecord, listed: SpecimenRow[], byId: Map<string, TimelineEvent>): RecordView['specimens'] {
+  const listedIds = new Set(listed.map((s) => s.id));
+  const madeId = (s: CaseRecord['specimens'][number]) => {
+    const e = byId.get(s.eventId);
+    return e?.kind === 'specimen_retrieved' ? e.payload.specimenId : undefined;
+  };
+  // The first tap naming a listed specimen is shown in its row; every other tap keeps a row of its own.
   const tapOf = new Map<string, CaseRecord['specimens'][number]>();
   for (const s of record.specimens) {
-    const e = byId.get(s.eventId);
-    const specimenId = e?.kind === 'specimen_retrieved' ? e.payload.specimenId : undefined;
-    if (specimenId && !tapOf.has(specimenId)) tapOf.set(specimenId, s);
+    const id = madeId(s);
+    if (id && listedIds.has(id) && !tapOf.has(id)) tapOf.set(id, s);
   }
-  // Only a tap whose specimen is listed is shown in the listed row; the others keep rows of their own.
-  const listedIds = new Set(listed.map((s) => s.id));
-  const linkedEvents = new Set([...tapOf].filter(([id]) => listedIds.has(id)).map(([, r]) => r.eventId));
+  const linked = new Set(tapOf.values());
   const rows: RecordView['specimens'] = listed.map((s) => {
     const tapped = tapOf.get(s.id);
     const axes = s.longMm != null && s.shortMm != null ? { longMm: s.longMm, shortMm: s.shortMm } : { longMm: tapped?.longMm ?? s.longMm, shortMm: tapped?.shortMm ?? s.shortMm };
@@ -191,9 +194,8 @@ function specimenRows(record: CaseRecord, listed: SpecimenRow[], byId: Map<strin
     };
   });
   for (const s of record.specimens) {
-    if (linkedEvents.has(s.eventId)) continue;
-    const e = byId.get(s.eventId);
-    const made = e?.kind === 'specimen_retrieved' ? e.payload.specimenId : undefined;
+    if (linked.has(s)) continue;
+    const made = madeId(s);
     rows.push({
       id: null, tapSpecimenId: made && !listedIds.has(made) ? made : null, label: null, retrievedAt: iso(s.atMs), retrievalMethod: s.method,
       pieces: s.pieces, longMm: s.longMm, shortMm: s.shortMm, areaMm2: s.areaMm2, containerId: null, handoffStatus: null,
